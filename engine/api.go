@@ -1,0 +1,53 @@
+package engine
+
+import (
+	"encoding/json"
+	"fmt"
+	"sync"
+
+	"gibbsheet/engine/compounds"
+)
+
+// EvaluateJSON reads a worksheet document and returns its result document. It returns an error only when
+// the input cannot be read as a worksheet at all (not JSON, a field of the wrong type, a missing or
+// unsupported format); everything wrong inside a row is reported in that row, and wrong field values in the
+// result's errors. It does not panic: a failure of the engine itself comes back as an error too.
+func EvaluateJSON(worksheet []byte) (out []byte, err error) {
+	defer func() {
+		if p := recover(); p != nil {
+			out, err = nil, fmt.Errorf("internal error in the engine (please report it with the worksheet): %v", p)
+		}
+	}()
+	ws, unknown, err := Decode(worksheet)
+	if err != nil {
+		return nil, err
+	}
+	return json.Marshal(Evaluate(ws, unknown))
+}
+
+// LibraryEntry is what the page needs of a library compound for completion and display.
+type LibraryEntry struct {
+	ID          string   `json:"id"`
+	Name        string   `json:"name"`
+	Synonyms    []string `json:"synonyms,omitempty"`
+	Formula     string   `json:"formula"`
+	Approximate bool     `json:"approximate,omitempty"`
+	Source      string   `json:"source"`
+}
+
+var compoundsJSON = sync.OnceValue(func() []byte {
+	all := compounds.Builtin().All()
+	list := make([]LibraryEntry, 0, len(all))
+	for _, c := range all {
+		list = append(list, LibraryEntry{ID: c.ID, Name: c.Name, Synonyms: c.Synonyms, Formula: c.Formula,
+			Approximate: c.Approximation != "", Source: c.Source})
+	}
+	b, err := json.Marshal(list)
+	if err != nil {
+		panic(err) // the library is static data; a failure here is a programming error
+	}
+	return b
+})
+
+// CompoundsJSON returns the built-in library as a JSON array of LibraryEntry, for completion in the page.
+func CompoundsJSON() []byte { return compoundsJSON() }

@@ -1,0 +1,212 @@
+package engine
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"slices"
+	"strings"
+	"unicode/utf8"
+
+	"gibbsheet/engine/compounds"
+	"gibbsheet/engine/equation"
+	"gibbsheet/engine/thermo"
+)
+
+// stoich is one compound of a reaction with its signed coefficient (products positive).
+type stoich struct {
+	key  string
+	coef float64
+	rat  *big.Rat
+	r    *reactant
+	term equation.Term // the term as written (the last one, where a compound stands on both sides)
+}
+
+// evaluation holds what one Evaluate call shares between rows.
+type evaluation struct {
+	ws     *Worksheet
+	cat    *catalog
+	cond   thermo.Conditions
+	condOK bool
+	rt     float64
+	band   float64
+	values valueTable
+	conc   map[string]concentration // by identity
+	defc   concentration
+	res    *Result
+	uses   map[string]int // index into res.Compounds by identity
+}
+
+type concentration struct {
+	molar float64
+	text  string
+	err   string
+}
+
+// Evaluate computes the result document of a decoded worksheet with the built-in compound library.
+// unknown lists document fields that Decode did not recognise; they become warnings.
+func Evaluate(ws *Worksheet, unknown []string) *Result {
+	return evaluateWith(compounds.Builtin(), ws, unknown)
+}
+
+func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Result {
+	res := &Result{Rows: make([]RowResult, 0, len(ws.Rows)), Compounds: []CompoundUse{}, Warnings: []Warning{}}
+	for _, f := range unknown {
+		res.Warnings = append(res.Warnings, Warning{Code: "unknown-field", Path: f,
+			Message: fmt.Sprintf("field %q is not part of the worksheet format and is ignored", f)})
+	}
+	cond, warns, errs := readConditions(ws.Conditions)
+	ev := &evaluation{ws: ws, cond: cond, condOK: errs == nil, res: res, uses: map[string]int{}}
+	res.Warnings = append(res.Warnings, warns...)
+	res.Errors = append(res.Errors, errs...)
+	ev.rt = cond.RT()
+	if !ev.condOK {
+		ev.rt = thermo.R * DefaultTemperature
+	}
+	ev.cat = newCatalog(lib, ws, cond, &res.Errors, &res.Warnings)
+	ev.band = ev.readBand()
+	ev.values = buildValues(ws, ev.cat.key, &res.Errors)
+	ev.readConcentrations()
+	ev.checkRowIDs()
+
+	var net netReaction
+	total := Total{DG0: new(float64), DG: new(float64)}
+	var incomplete []string
+	for i := range ws.Rows {
+		row, nu := ev.row(&ws.Rows[i])
+		res.Rows = append(res.Rows, row)
+		if row.Error != nil || row.DG0 == nil {
+			incomplete = append(incomplete, row.ID)
+			total.DG0, total.DG = nil, nil
+			continue
+		}
+		net.add(nu, row.Times)
+		total.Cost.add(*row.Cost)
+		if total.DG0 != nil {
+			*total.DG0 += row.Times * *row.DG0
+		}
+		if total.DG != nil && row.DG != nil {
+			*total.DG += row.Times * *row.DG
+		} else {
+			total.DG = nil
+		}
+	}
+	if len(incomplete) > 0 {
+		res.Warnings = append(res.Warnings, Warning{Code: "total-incomplete", Path: "rows",
+			Message: fmt.Sprintf("the totals leave out %d row(s) that could not be computed: %s",
+				len(incomplete), strings.Join(incomplete, ", "))})
+	}
+	total.Equation = net.String()
+	total.Cost = Cost{Phosphate: clean(total.Cost.Phosphate), Reducing: clean(total.Cost.Reducing), Total: clean(total.Cost.Total)}
+	res.Total = total
+	res.Values = make(map[string]ValueUsed, len(ev.values.used))
+	for k, v := range ev.values.used {
+		res.Values[strings.TrimPrefix(k, "own:")] = v
+	}
+	res.Conditions = conditionsUsed(cond, ev.band)
+	if len(res.Errors) == 0 {
+		res.Errors = nil
+	}
+	return res
+}
+
+func (ev *evaluation) readBand() float64 {
+	band := ev.rt * math.Ln10 // Q within tenfold of K'
+	if b := ev.ws.NearEquilibrium; b != nil {
+		if !finite(*b) || *b < 0 {
+			ev.res.Errors = append(ev.res.Errors, FieldError{Path: "nearEquilibrium",
+				Message: fmt.Sprintf("near-equilibrium band %v kJ/mol must be a finite number ≥ 0", *b)})
+		} else {
+			band = *b
+		}
+	}
+	return band
+}
+
+func (ev *evaluation) readConcentrations() {
+	ev.conc = map[string]concentration{}
+	text := ev.ws.DefaultConcentration
+	if strings.TrimSpace(text) == "" {
+		text = DefaultConcentration
+	}
+	ev.defc = concentration{text: text}
+	if c, err := ParseConcentration(text); err != nil {
+		ev.defc.err = err.Error()
+		ev.res.Errors = append(ev.res.Errors, FieldError{Path: "defaultConcentration", Message: err.Error()})
+	} else {
+		ev.defc.molar = c
+	}
+	names := make([]string, 0, len(ev.ws.Concentrations))
+	for name := range ev.ws.Concentrations {
+		names = append(names, name)
+	}
+	slices.Sort(names)
+	given := map[string]string{}
+	for _, name := range names {
+		path := "concentrations." + name
+		r := ev.cat.resolve(name)
+		switch {
+		case r == nil:
+			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path,
+				Message: fmt.Sprintf("no compound %q: check the name used in the equations", name)})
+			continue
+		case r.isWater():
+			ev.res.Warnings = append(ev.res.Warnings, Warning{Code: "fixed-concentration", Path: path,
+				Message: "water is taken at activity 1 in dilute solution; its concentration is ignored"})
+			continue
+		case r.isProton():
+			ev.res.Warnings = append(ev.res.Warnings, Warning{Code: "fixed-concentration", Path: path,
+				Message: "H+ is set by the pH; its concentration is ignored"})
+			continue
+		}
+		if prev, dup := given[r.key]; dup {
+			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path,
+				Message: fmt.Sprintf("%q and %q name the same compound: keep one concentration", prev, name)})
+			continue
+		}
+		given[r.key] = name
+		c := concentration{text: ev.ws.Concentrations[name]}
+		if v, err := ParseConcentration(c.text); err != nil {
+			c.err = err.Error()
+			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path, Message: err.Error()})
+		} else {
+			c.molar = v
+		}
+		ev.conc[r.key] = c
+	}
+}
+
+func (ev *evaluation) checkRowIDs() {
+	seen := map[string]bool{}
+	for i, row := range ev.ws.Rows {
+		path := fmt.Sprintf("rows[%d].id", i)
+		switch {
+		case row.ID == "":
+			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path, Message: "a row needs an id"})
+		case seen[row.ID]:
+			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path, Message: fmt.Sprintf("row id %q is used twice", row.ID)})
+		}
+		seen[row.ID] = true
+	}
+}
+
+// rowErrors converts the parser's errors to row errors with character columns.
+func rowErrors(src string, err error) []RowError {
+	list, ok := err.(equation.ErrorList)
+	if !ok {
+		return []RowError{{Message: err.Error()}}
+	}
+	out := make([]RowError, 0, len(list))
+	for _, e := range list {
+		out = append(out, spanError(src, e.Pos, e.End, e.Msg, e.Suggest))
+	}
+	return out
+}
+
+func spanError(src string, pos, end equation.Pos, msg string, suggest []string) RowError {
+	length := 1
+	if int(end) > int(pos) && int(end) <= len(src) {
+		length = max(1, utf8.RuneCountInString(src[pos:end]))
+	}
+	return RowError{Message: msg, Column: equation.Column(src, pos), Length: length, Suggestions: suggest}
+}

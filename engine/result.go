@@ -1,0 +1,114 @@
+package engine
+
+// Result is the document EvaluateJSON returns. Numbers that cannot be computed are nil (JSON null).
+type Result struct {
+	Rows       []RowResult          `json:"rows"`
+	Total      Total                `json:"total"`
+	Compounds  []CompoundUse        `json:"compounds"`
+	Values     map[string]ValueUsed `json:"values"`
+	Conditions ConditionsUsed       `json:"conditions"`
+	Warnings   []Warning            `json:"warnings"`
+	Errors     []FieldError         `json:"errors,omitempty"`
+}
+
+// Status of a row at the entered concentrations.
+const (
+	StatusUphill          = "uphill"           // ΔrG' > 0: the step cannot run forward
+	StatusNearEquilibrium = "near-equilibrium" // −band ≤ ΔrG' ≤ 0
+	StatusDownhill        = "downhill"         // ΔrG' < −band
+)
+
+// RowResult is one evaluated row. DG0 and DG are per reaction as written (kJ/mol); Cost includes the row's
+// multiplier.
+type RowResult struct {
+	ID       string     `json:"id"`
+	Equation string     `json:"equation"`
+	Times    float64    `json:"times"`
+	DG0      *float64   `json:"dG0"`
+	DG       *float64   `json:"dG"`
+	K        *float64   `json:"K"`
+	Q        *float64   `json:"Q"`
+	Log10K   *float64   `json:"log10K"`
+	Log10Q   *float64   `json:"log10Q"`
+	Status   string     `json:"status"`
+	Cost     *Cost      `json:"cost"`
+	Warnings []Warning  `json:"warnings"`
+	Error    *RowError  `json:"error,omitempty"`
+	Errors   []RowError `json:"errors,omitempty"`
+}
+
+// Cost in ATP equivalents: positive is spent, negative is gained. Reducing counts reduced carriers; Total
+// adds Phosphate and each carrier weighted by its P/O ratio.
+type Cost struct {
+	Phosphate float64 `json:"phosphate"`
+	Reducing  float64 `json:"reducing"`
+	Total     float64 `json:"total"`
+}
+
+func (c *Cost) add(d Cost) {
+	c.Phosphate += d.Phosphate
+	c.Reducing += d.Reducing
+	c.Total += d.Total
+}
+
+// RowError is a problem in a row's equation or data. Column and Length (in characters, Column 1-based) mark
+// the span of the equation text to underline; Column is 0 when the problem is not in the text.
+type RowError struct {
+	Message     string   `json:"message"`
+	Column      int      `json:"column"`
+	Length      int      `json:"length"`
+	Suggestions []string `json:"suggestions,omitempty"`
+}
+
+// Warning is something a careful biochemist would want to know; it never stops the computation.
+type Warning struct {
+	Code    string `json:"code"`
+	Message string `json:"message"`
+	Path    string `json:"path,omitempty"`
+}
+
+// FieldError is a wrong value in a document field, named by its JSON path ("conditions.pH",
+// "concentrations.ATP"); the value stays in the document as the user typed it.
+type FieldError struct {
+	Path    string `json:"path"`
+	Message string `json:"message"`
+}
+
+// Total is the pathway: the net reaction of all rows times their multipliers, intermediates cancelled.
+type Total struct {
+	Equation string   `json:"equation"`
+	DG0      *float64 `json:"dG0"`
+	DG       *float64 `json:"dG"`
+	Cost     Cost     `json:"cost"`
+}
+
+// CompoundUse describes a compound that appears in the rows, in order of first appearance.
+type CompoundUse struct {
+	ID            string   `json:"id"`      // as first written in an equation, in normal form
+	Name          string   `json:"name"`    // full name
+	Library       string   `json:"library"` // library id, "" for the worksheet's own compounds
+	Own           bool     `json:"own"`     // one of the worksheet's own compounds
+	Concentration *float64 `json:"concentration"`
+	Text          string   `json:"text"`      // the concentration as entered, or the default's text
+	AtDefault     bool     `json:"atDefault"` // no concentration entered
+	Fixed         string   `json:"fixed,omitempty"`
+	DfG0Prime     *float64 `json:"dfG0prime"`
+	Rows          []string `json:"rows"`
+}
+
+// ValueUsed is the energy value of a compound in use.
+type ValueUsed struct {
+	Phosphate float64 `json:"phosphate"`
+	Reducing  float64 `json:"reducing"`
+	PO        float64 `json:"po"`
+}
+
+// ConditionsUsed are the conditions after defaults are filled in; PMg is nil when magnesium is ignored.
+type ConditionsUsed struct {
+	PH              float64  `json:"pH"`
+	IonicStrength   float64  `json:"ionicStrength"`
+	PMg             *float64 `json:"pMg"`
+	Temperature     float64  `json:"temperature"`
+	RT              float64  `json:"RT"`
+	NearEquilibrium float64  `json:"nearEquilibrium"`
+}

@@ -1,0 +1,236 @@
+package engine
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+
+	"gibbsheet/engine/equation"
+)
+
+// row evaluates one reaction row:
+//
+//	ΔrG'° = Σ ν_i ΔfG'°_i          (Alberty 2003, eq. 4.4-2; or the entered dG0)
+//	Q     = Π c_i^ν_i              (c in mol/L over 1 M; water at activity 1, H+ left out)
+//	ΔrG'  = ΔrG'° + RT ln Q,   K' = exp(−ΔrG'°/RT)
+//
+// It returns the row's result and its stoichiometry (nil when the row has errors).
+func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
+	out := RowResult{ID: in.ID, Equation: in.Equation, Times: 1, Warnings: []Warning{}}
+	var errs []RowError
+	if in.Times != nil {
+		out.Times = *in.Times
+		if !finite(*in.Times) || *in.Times <= 0 {
+			errs = append(errs, RowError{Message: fmt.Sprintf("multiplier %v must be a number greater than zero "+
+				"(to run a step backwards, swap the sides of its equation)", *in.Times)})
+		}
+	}
+	if in.DG0 != nil && !finite(*in.DG0) {
+		errs = append(errs, RowError{Message: "the entered ΔrG'° must be a finite number"})
+	}
+	if !ev.condOK {
+		errs = append(errs, RowError{Message: "the conditions are not usable: correct them first"})
+	}
+	eq, err := equation.Parse(in.Equation)
+	if err != nil {
+		return finishRow(out, append(errs, rowErrors(in.Equation, err)...)), nil
+	}
+	out.Equation = eq.String()
+	nu, termErrs := ev.resolveTerms(in, eq, &out)
+	errs = append(errs, termErrs...)
+	if len(errs) > 0 {
+		return finishRow(out, errs), nil
+	}
+
+	dg0, dataErrs := ev.standardEnergy(in, eq, nu, &out)
+	lnQ, concErrs := ev.lnQ(in.Equation, nu)
+	if errs = append(dataErrs, concErrs...); len(errs) > 0 && dg0 == nil {
+		return finishRow(out, errs), nil
+	}
+	out.Cost = new(Cost)
+	*out.Cost = ev.values.cost(nu, out.Times)
+	ev.costNotes(nu, &out)
+	ev.balance(nu, &out)
+	if dg0 != nil {
+		out.DG0 = dg0
+		logK := -*dg0 / (ev.rt * math.Ln10)
+		out.Log10K = &logK
+		out.K = finiteOrNil(math.Pow(10, logK))
+	}
+	if len(concErrs) == 0 {
+		logQ := lnQ / math.Ln10
+		out.Log10Q = &logQ
+		out.Q = finiteOrNil(math.Exp(lnQ))
+		if dg0 != nil {
+			dg := *dg0 + ev.rt*lnQ
+			out.DG = &dg
+			out.Status = ev.status(dg)
+			if out.Status == StatusUphill {
+				out.Warnings = append(out.Warnings, Warning{Code: "uphill", Message: fmt.Sprintf(
+					"uphill: ΔrG' = %+.1f kJ/mol, so this step cannot run forward at these concentrations", dg)})
+			}
+		}
+	}
+	if len(errs) > 0 {
+		return finishRow(out, errs), nil
+	}
+	return out, nu
+}
+
+func finishRow(out RowResult, errs []RowError) RowResult {
+	if len(errs) > 0 {
+		out.Error = &errs[0]
+		out.Errors = errs
+		out.Status = ""
+	}
+	return out
+}
+
+func finiteOrNil(x float64) *float64 {
+	if !finite(x) || x == 0 {
+		return nil
+	}
+	return &x
+}
+
+func (ev *evaluation) status(dg float64) string {
+	switch {
+	case dg > 0:
+		return StatusUphill
+	case dg >= -ev.band:
+		return StatusNearEquilibrium
+	}
+	return StatusDownhill
+}
+
+// resolveTerms maps every term to its compound and adds up the signed coefficients; a compound on both sides
+// keeps its net coefficient. Unknown names and compartments are errors at their columns.
+func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResult) ([]stoich, []RowError) {
+	var nu []stoich
+	var errs []RowError
+	index := map[string]int{}
+	add := func(t equation.Term, sign int64) {
+		if t.Compartment != "" && t.Compartment != DefaultCompartment {
+			errs = append(errs, spanError(in.Equation, t.NameEnd, t.NameEnd+equation.Pos(len(t.Compartment)+2),
+				fmt.Sprintf("unknown compartment %q: this worksheet has only the default compartment %q",
+					t.Compartment, DefaultCompartment), nil))
+			return
+		}
+		r := ev.cat.resolve(t.Name)
+		if r == nil {
+			sugg := ev.cat.suggestions(t.Name)
+			msg := fmt.Sprintf("unknown compound %q", t.Name)
+			if len(sugg) > 0 {
+				msg += "; did you mean " + quoteList(sugg) + "?"
+			}
+			errs = append(errs, spanError(in.Equation, t.NamePos, t.NameEnd, msg, sugg))
+			return
+		}
+		if r.isProton() {
+			out.Warnings = append(out.Warnings, Warning{Code: "proton", Message: "H+ is left out of the " +
+				"transformed equation: the pH fixes its concentration, so it carries no term"})
+			return
+		}
+		ev.use(r, t, in.ID)
+		coef := new(big.Rat).SetFrac64(sign*t.Coef.Num, t.Coef.Den)
+		if i, ok := index[r.key]; ok {
+			nu[i].rat.Add(nu[i].rat, coef)
+			nu[i].coef, _ = nu[i].rat.Float64()
+			return
+		}
+		f, _ := coef.Float64()
+		index[r.key] = len(nu)
+		nu = append(nu, stoich{key: r.key, coef: f, rat: coef, r: r, term: t})
+	}
+	for _, t := range eq.Left {
+		add(t, -1)
+	}
+	for _, t := range eq.Right {
+		add(t, 1)
+	}
+	return nu, errs
+}
+
+// standardEnergy is ΔrG'° of the row: entered, or Σ ν ΔfG'° over compounds with data. A compound without
+// data is an error unless a ΔrG'° was entered.
+func (ev *evaluation) standardEnergy(in *Row, eq *equation.Equation, nu []stoich, out *RowResult) (*float64, []RowError) {
+	var errs []RowError
+	var sum float64
+	for _, s := range nu {
+		r := s.r
+		if r.approx != "" {
+			out.Warnings = append(out.Warnings, Warning{Code: "approximate-data",
+				Message: fmt.Sprintf("the data for %s are approximate: %s", r.name, r.approx)})
+		}
+		if r.noEnthalpy && math.Abs(ev.cond.Temperature-DefaultTemperature) > 1 && in.DG0 == nil {
+			out.Warnings = append(out.Warnings, Warning{Code: "no-enthalpy", Message: fmt.Sprintf(
+				"no ΔfH° is known for %s: its energy is held at the 298.15 K value", r.name)})
+		}
+		if r.own != nil && r.own.DfG0Prime != nil && in.DG0 == nil {
+			out.Warnings = append(out.Warnings, Warning{Code: "entered-formation-energy", Message: fmt.Sprintf(
+				"ΔfG'° of %s is used as entered and does not follow changes of pH, I, pMg or temperature", r.name)})
+		}
+		if !r.hasData {
+			if in.DG0 == nil {
+				errs = append(errs, spanError(in.Equation, s.term.NamePos, s.term.NameEnd, r.noData, nil))
+			}
+			continue
+		}
+		sum += s.coef * r.dfG0prime
+	}
+	if in.DG0 != nil {
+		v := *in.DG0
+		msg := fmt.Sprintf("the entered ΔrG'° (%.2f kJ/mol) is used", v)
+		if len(errs) == 0 {
+			msg += fmt.Sprintf(" in place of the computed %.2f kJ/mol", sum)
+		}
+		out.Warnings = append(out.Warnings, Warning{Code: "entered-dG0", Message: msg})
+		return &v, nil
+	}
+	if len(errs) > 0 {
+		return nil, errs
+	}
+	return &sum, nil
+}
+
+// lnQ is ln of the mass-action ratio with concentrations in mol/L; water counts at activity 1.
+func (ev *evaluation) lnQ(src string, nu []stoich) (float64, []RowError) {
+	var lnQ float64
+	var errs []RowError
+	for _, s := range nu {
+		if s.r.isWater() || s.coef == 0 {
+			continue
+		}
+		c, ok := ev.conc[s.key]
+		if !ok {
+			c = ev.defc
+		}
+		if c.err != "" {
+			errs = append(errs, spanError(src, s.term.NamePos, s.term.NameEnd,
+				fmt.Sprintf("the concentration of %s (%q) is not usable: %s", s.r.name, c.text, c.err), nil))
+			continue
+		}
+		lnQ += s.coef * math.Log(c.molar)
+	}
+	return lnQ, errs
+}
+
+// costNotes explains cost values that rest on an assumption.
+func (ev *evaluation) costNotes(nu []stoich, out *RowResult) {
+	for _, s := range nu {
+		if s.key == "PPi" && !ev.values.overridden[s.key] {
+			out.Warnings = append(out.Warnings, Warning{Code: "pyrophosphate", Message: pyrophosphateNote})
+		}
+	}
+}
+
+func quoteList(names []string) string {
+	s := ""
+	for i, n := range names {
+		if i > 0 {
+			s += ", "
+		}
+		s += fmt.Sprintf("%q", n)
+	}
+	return s
+}

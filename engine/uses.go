@@ -1,0 +1,42 @@
+package engine
+
+import (
+	"gibbsheet/engine/equation"
+)
+
+// use records that a row uses a compound, for the result's list of compounds and their concentrations.
+func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
+	if i, ok := ev.uses[r.key]; ok {
+		u := &ev.res.Compounds[i]
+		if n := len(u.Rows); n == 0 || u.Rows[n-1] != rowID {
+			u.Rows = append(u.Rows, rowID)
+		}
+		return
+	}
+	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name, Name: r.name, Rows: []string{rowID}})
+	u := &ev.res.Compounds[len(ev.res.Compounds)-1]
+	if r.lib != nil {
+		u.Library = r.lib.ID
+	} else {
+		u.Own = true
+	}
+	if r.hasData {
+		g := r.dfG0prime
+		u.DfG0Prime = &g
+	}
+	switch {
+	case r.isWater():
+		u.Fixed = "activity 1"
+	default:
+		c, given := ev.conc[r.key]
+		if !given {
+			c = ev.defc
+		}
+		u.Text, u.AtDefault = c.text, !given
+		if c.err == "" {
+			m := c.molar
+			u.Concentration = &m
+		}
+	}
+	ev.uses[r.key] = len(ev.res.Compounds) - 1
+}
