@@ -3,7 +3,7 @@ package engine
 import (
 	"fmt"
 	"maps"
-	"slices"
+	"strings"
 )
 
 // defaultValues are the energy values of the currency compounds, keyed by library id. They are common
@@ -22,24 +22,31 @@ var defaultValues = map[string]ValueUsed{
 	"NADH": {Reducing: 1, PO: 2.5}, "NADPH": {Reducing: 1, PO: 2.5},
 	"FADH2": {Reducing: 1, PO: 1.5}, "ubiquinol": {Reducing: 1, PO: 1.5},
 	"NAD+": {PO: 2.5}, "NADP+": {PO: 2.5}, "FAD": {PO: 1.5}, "ubiquinone": {PO: 1.5},
+	protonID: {ProtonsPerATP: DefaultProtonsPerATP},
 }
+
+// DefaultProtonsPerATP is how many protons crossing the inner mitochondrial membrane count as one ATP: about
+// 2.7 through the synthase (8 c-subunits per 3 ATP in animals) and 1 for the phosphate carrier and the
+// ATP/ADP translocase, rounded to 4 as textbooks do (Berg, Tymoczko & Stryer, Biochemistry; from memory).
+// It matches the P/O ratio of 2.5 for NADH (10 protons pumped).
+const DefaultProtonsPerATP = 4.0
 
 // pyrophosphateNote is attached to every row that makes or uses PPi at the default value.
 const pyrophosphateNote = "PPi is counted at phosphate value 0: it is assumed hydrolysed by pyrophosphatase " +
 	"(set a value for PPi to count it otherwise)"
 
 // valueTable holds the values in use: the defaults with the worksheet's overrides applied, keyed by the
-// compound's identity (library id or own-compound id).
+// compound's identity (library id or "own:" + own id).
 type valueTable struct {
-	used       map[string]ValueUsed
+	byKey      map[string]ValueUsed
 	overridden map[string]bool // keys the worksheet sets a value for
 }
 
 // buildValues applies the worksheet's overrides. Keys of ws.Values are compound names as the user writes
 // them; resolve maps them to compound identities. Bad keys and values become field errors.
 func buildValues(ws *Worksheet, resolve func(string) (string, bool), errs *[]FieldError) valueTable {
-	table := valueTable{used: maps.Clone(defaultValues), overridden: map[string]bool{}}
-	for _, name := range slices.Sorted(maps.Keys(ws.Values)) {
+	table := valueTable{byKey: maps.Clone(defaultValues), overridden: map[string]bool{}}
+	for _, name := range sortedKeys(ws.Values) {
 		path := "values." + name
 		key, ok := resolve(name)
 		if !ok {
@@ -47,51 +54,81 @@ func buildValues(ws *Worksheet, resolve func(string) (string, bool), errs *[]Fie
 			continue
 		}
 		v := ws.Values[name]
-		used := table.used[key]
+		used := table.byKey[key]
 		table.overridden[key] = true
 		for _, f := range []struct {
-			field string
-			in    *float64
-			out   *float64
-		}{{"phosphate", v.Phosphate, &used.Phosphate}, {"reducing", v.Reducing, &used.Reducing}, {"po", v.PO, &used.PO}} {
+			field    string
+			in, out  *float64
+			positive bool
+		}{
+			{"phosphate", v.Phosphate, &used.Phosphate, false},
+			{"reducing", v.Reducing, &used.Reducing, false},
+			{"po", v.PO, &used.PO, false},
+			{"protonsPerATP", v.ProtonsPerATP, &used.ProtonsPerATP, true},
+		} {
 			if f.in == nil {
 				continue
 			}
-			if !finite(*f.in) || *f.in < 0 && f.field == "po" {
+			switch {
+			case f.field == "protonsPerATP" && key != protonID:
+				*errs = append(*errs, FieldError{Path: path + "." + f.field, Message: "protonsPerATP is set on H+ only"})
+			case !finite(*f.in) || f.field == "po" && *f.in < 0 || f.positive && *f.in <= 0:
 				*errs = append(*errs, FieldError{Path: path + "." + f.field,
-					Message: fmt.Sprintf("%s value %v is not usable: enter a finite number (P/O not negative)", f.field, *f.in)})
-				continue
+					Message: fmt.Sprintf("%s value %v is not usable: enter a finite number%s", f.field, *f.in,
+						map[bool]string{true: " greater than zero", false: ""}[f.positive || f.field == "po"])})
+			default:
+				*f.out = *f.in
 			}
-			*f.out = *f.in
 		}
-		table.used[key] = used
+		table.byKey[key] = used
 	}
 	return table
 }
 
-// cost of a reaction with stoichiometry nu (compound identity → signed coefficient, products positive):
+// cost of a reaction with stoichiometry nu (signed coefficients, products positive):
 //
-//	phosphate = −Σ ν_i·P_i,  reducing = −Σ ν_i·R_i,  total = −Σ ν_i·(P_i + R_i·PO_i)
+//	phosphate = −Σ ν_i·P_i,  reducing = −Σ ν_i·R_i,  total = −Σ ν_i·(P_i + R_i·PO_i) + protons/(H+ per ATP)
 //
 // times the multiplier, so a cost is positive and a yield negative (ATP + glucose = ADP + G6P costs 1).
-func (t valueTable) cost(nu []stoich, times float64) Cost {
+// protons counts the protons the row lets back across a membrane down their gradient (negative: pumped).
+func (t valueTable) cost(nu []stoich, protons, times float64) Cost {
 	var c Cost
 	for _, s := range nu {
-		v := t.used[s.key]
+		v := t.byKey[s.r.compound.key]
 		c.Phosphate -= s.coef * v.Phosphate
 		c.Reducing -= s.coef * v.Reducing
 		c.Total -= s.coef * (v.Phosphate + v.Reducing*v.PO)
 	}
-	c.Phosphate *= times
-	c.Reducing *= times
-	c.Total *= times
-	return Cost{Phosphate: clean(c.Phosphate), Reducing: clean(c.Reducing), Total: clean(c.Total)}
+	c.Protons = protons
+	c.ProtonATP = protons / t.byKey[protonID].ProtonsPerATP
+	c.Total += c.ProtonATP
+	c.scale(times)
+	c.clean()
+	return c
+}
+
+// used lists the values in use by the names a user knows them by (library id or own id).
+func (t valueTable) used(cat *catalog) map[string]ValueUsed {
+	out := make(map[string]ValueUsed, len(t.byKey))
+	for k, v := range t.byKey {
+		out[strings.TrimPrefix(k, "own:")] = v
+	}
+	return out
+}
+
+func (c *Cost) scale(f float64) {
+	c.Phosphate *= f
+	c.Reducing *= f
+	c.Protons *= f
+	c.ProtonATP *= f
+	c.Total *= f
 }
 
 // clean removes the −0 and rounding dust (below 1e-12) that sums of exact small values leave.
-func clean(x float64) float64 {
-	if x > -1e-12 && x < 1e-12 {
-		return 0
+func (c *Cost) clean() {
+	for _, x := range []*float64{&c.Phosphate, &c.Reducing, &c.Protons, &c.ProtonATP, &c.Total} {
+		if *x > -1e-12 && *x < 1e-12 {
+			*x = 0
+		}
 	}
-	return x
 }

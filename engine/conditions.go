@@ -34,12 +34,7 @@ func readConditions(in *Conditions) (c thermo.Conditions, warnings []Warning, er
 		set(&c.Temperature, in.Temperature)
 	}
 	if err := c.Check(); err != nil {
-		var ce *thermo.ConditionError
-		path := "conditions"
-		if errors.As(err, &ce) {
-			path = "conditions." + ce.Field
-		}
-		return c, nil, []FieldError{{Path: path, Message: err.Error()}}
+		return c, nil, []FieldError{{Path: "conditions." + conditionField(err), Message: err.Error()}}
 	}
 	if c.IonicStrength > thermo.MaxIonicStrength {
 		warnings = append(warnings, Warning{Code: "ionic-strength", Path: "conditions.ionicStrength",
@@ -68,6 +63,15 @@ func conditionsUsed(c thermo.Conditions, band float64) ConditionsUsed {
 		used.PMg = &pMg
 	}
 	return used
+}
+
+// conditionField is the document field of a thermo.ConditionError ("pH", "ionicStrength", ...).
+func conditionField(err error) string {
+	var ce *thermo.ConditionError
+	if errors.As(err, &ce) {
+		return ce.Field
+	}
+	return "conditions"
 }
 
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }

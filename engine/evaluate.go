@@ -13,28 +13,30 @@ import (
 	"gibbsheet/engine/thermo"
 )
 
-// stoich is one compound of a reaction with its signed coefficient (products positive).
+// stoich is one reactant of a reaction with its signed coefficient (products positive).
 type stoich struct {
-	key  string
+	key  string // reactant key: compound and compartment
 	coef float64
 	rat  *big.Rat
 	r    *reactant
-	term equation.Term // the term as written (the last one, where a compound stands on both sides)
+	term equation.Term // the term as written (the last one, where a reactant stands on both sides)
 }
 
 // evaluation holds what one Evaluate call shares between rows.
 type evaluation struct {
-	ws     *Worksheet
-	cat    *catalog
-	cond   thermo.Conditions
-	condOK bool
-	rt     float64
-	band   float64
-	values valueTable
-	conc   map[string]concentration // by identity
-	defc   concentration
-	res    *Result
-	uses   map[string]int // index into res.Compounds by identity
+	ws          *Worksheet
+	cat         *catalog
+	cond        thermo.Conditions
+	condOK      bool
+	rt          float64
+	band        float64
+	comps       map[string]*compartment
+	defaultComp string
+	values      valueTable
+	conc        map[string]concentration // by reactant key
+	defc        concentration
+	res         *Result
+	uses        map[string]int // index into res.Compounds by reactant key
 }
 
 type concentration struct {
@@ -51,19 +53,21 @@ func Evaluate(ws *Worksheet, unknown []string) *Result {
 
 func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Result {
 	res := &Result{Rows: make([]RowResult, 0, len(ws.Rows)), Compounds: []CompoundUse{}, Warnings: []Warning{}}
+	ev := &evaluation{ws: ws, res: res, uses: map[string]int{}}
 	for _, f := range unknown {
-		res.Warnings = append(res.Warnings, Warning{Code: "unknown-field", Path: f,
+		ev.warn(Warning{Code: "unknown-field", Path: f,
 			Message: fmt.Sprintf("field %q is not part of the worksheet format and is ignored", f)})
 	}
 	cond, warns, errs := readConditions(ws.Conditions)
-	ev := &evaluation{ws: ws, cond: cond, condOK: errs == nil, res: res, uses: map[string]int{}}
+	ev.cond, ev.condOK = cond, errs == nil
 	res.Warnings = append(res.Warnings, warns...)
 	res.Errors = append(res.Errors, errs...)
 	ev.rt = cond.RT()
 	if !ev.condOK {
 		ev.rt = thermo.R * DefaultTemperature
 	}
-	ev.cat = newCatalog(lib, ws, cond, &res.Errors, &res.Warnings)
+	ev.readCompartments()
+	ev.cat = newCatalog(lib, ws, ev)
 	ev.band = ev.readBand()
 	ev.values = buildValues(ws, ev.cat.key, &res.Errors)
 	ev.readConcentrations()
@@ -75,7 +79,7 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 	for i := range ws.Rows {
 		row, nu := ev.row(&ws.Rows[i])
 		res.Rows = append(res.Rows, row)
-		if row.Error != nil || row.DG0 == nil {
+		if nu == nil {
 			incomplete = append(incomplete, row.ID)
 			total.DG0, total.DG = nil, nil
 			continue
@@ -92,17 +96,14 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 		}
 	}
 	if len(incomplete) > 0 {
-		res.Warnings = append(res.Warnings, Warning{Code: "total-incomplete", Path: "rows",
+		ev.warn(Warning{Code: "total-incomplete", Path: "rows",
 			Message: fmt.Sprintf("the totals leave out %d row(s) that could not be computed: %s",
 				len(incomplete), strings.Join(incomplete, ", "))})
 	}
 	total.Equation = net.String()
-	total.Cost = Cost{Phosphate: clean(total.Cost.Phosphate), Reducing: clean(total.Cost.Reducing), Total: clean(total.Cost.Total)}
+	total.Cost.clean()
 	res.Total = total
-	res.Values = make(map[string]ValueUsed, len(ev.values.used))
-	for k, v := range ev.values.used {
-		res.Values[strings.TrimPrefix(k, "own:")] = v
-	}
+	res.Values = ev.values.used(ev.cat)
 	res.Conditions = conditionsUsed(cond, ev.band)
 	if len(res.Errors) == 0 {
 		res.Errors = nil
@@ -110,17 +111,37 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 	return res
 }
 
+func (ev *evaluation) fieldError(path, msg string) {
+	ev.res.Errors = append(ev.res.Errors, FieldError{Path: path, Message: msg})
+}
+
+func (ev *evaluation) warn(w Warning) { ev.res.Warnings = append(ev.res.Warnings, w) }
+
 func (ev *evaluation) readBand() float64 {
 	band := ev.rt * math.Ln10 // Q within tenfold of K'
 	if b := ev.ws.NearEquilibrium; b != nil {
 		if !finite(*b) || *b < 0 {
-			ev.res.Errors = append(ev.res.Errors, FieldError{Path: "nearEquilibrium",
-				Message: fmt.Sprintf("near-equilibrium band %v kJ/mol must be a finite number ≥ 0", *b)})
+			ev.fieldError("nearEquilibrium", fmt.Sprintf("near-equilibrium band %v kJ/mol must be a finite number ≥ 0", *b))
 		} else {
 			band = *b
 		}
 	}
 	return band
+}
+
+// resolveName maps a name as written in a document key ("ATP", "malate[m]") to a reactant; the message
+// says why when there is none.
+func (ev *evaluation) resolveName(written string) (*reactant, string) {
+	name, tag := splitTag(written)
+	c := ev.cat.resolve(name)
+	if c == nil {
+		return nil, fmt.Sprintf("no compound %q: check the name used in the equations", name)
+	}
+	comp := ev.compartmentOf(tag)
+	if comp == nil {
+		return nil, fmt.Sprintf("no compartment %q: the worksheet has %s", tag, ev.compartmentIDs())
+	}
+	return ev.cat.reactant(c, comp), ""
 }
 
 func (ev *evaluation) readConcentrations() {
@@ -132,48 +153,49 @@ func (ev *evaluation) readConcentrations() {
 	ev.defc = concentration{text: text}
 	if c, err := ParseConcentration(text); err != nil {
 		ev.defc.err = err.Error()
-		ev.res.Errors = append(ev.res.Errors, FieldError{Path: "defaultConcentration", Message: err.Error()})
+		ev.fieldError("defaultConcentration", err.Error())
 	} else {
 		ev.defc.molar = c
 	}
-	names := make([]string, 0, len(ev.ws.Concentrations))
-	for name := range ev.ws.Concentrations {
-		names = append(names, name)
-	}
-	slices.Sort(names)
 	given := map[string]string{}
-	for _, name := range names {
+	for _, name := range sortedKeys(ev.ws.Concentrations) {
 		path := "concentrations." + name
-		r := ev.cat.resolve(name)
+		r, why := ev.resolveName(name)
 		switch {
 		case r == nil:
-			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path,
-				Message: fmt.Sprintf("no compound %q: check the name used in the equations", name)})
+			ev.fieldError(path, why)
 			continue
 		case r.isWater():
-			ev.res.Warnings = append(ev.res.Warnings, Warning{Code: "fixed-concentration", Path: path,
+			ev.warn(Warning{Code: "fixed-concentration", Path: path,
 				Message: "water is taken at activity 1 in dilute solution; its concentration is ignored"})
 			continue
 		case r.isProton():
-			ev.res.Warnings = append(ev.res.Warnings, Warning{Code: "fixed-concentration", Path: path,
+			ev.warn(Warning{Code: "fixed-concentration", Path: path,
 				Message: "H+ is set by the pH; its concentration is ignored"})
 			continue
 		}
 		if prev, dup := given[r.key]; dup {
-			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path,
-				Message: fmt.Sprintf("%q and %q name the same compound: keep one concentration", prev, name)})
+			ev.fieldError(path, fmt.Sprintf("%q and %q name the same compound: keep one concentration", prev, name))
 			continue
 		}
 		given[r.key] = name
 		c := concentration{text: ev.ws.Concentrations[name]}
 		if v, err := ParseConcentration(c.text); err != nil {
 			c.err = err.Error()
-			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path, Message: err.Error()})
+			ev.fieldError(path, err.Error())
 		} else {
 			c.molar = v
 		}
 		ev.conc[r.key] = c
 	}
+}
+
+// concentrationOf returns the concentration in use for a reactant and whether it was entered.
+func (ev *evaluation) concentrationOf(r *reactant) (concentration, bool) {
+	if c, ok := ev.conc[r.key]; ok {
+		return c, true
+	}
+	return ev.defc, false
 }
 
 func (ev *evaluation) checkRowIDs() {
@@ -182,9 +204,9 @@ func (ev *evaluation) checkRowIDs() {
 		path := fmt.Sprintf("rows[%d].id", i)
 		switch {
 		case row.ID == "":
-			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path, Message: "a row needs an id"})
+			ev.fieldError(path, "a row needs an id")
 		case seen[row.ID]:
-			ev.res.Errors = append(ev.res.Errors, FieldError{Path: path, Message: fmt.Sprintf("row id %q is used twice", row.ID)})
+			ev.fieldError(path, fmt.Sprintf("row id %q is used twice", row.ID))
 		}
 		seen[row.ID] = true
 	}
@@ -209,4 +231,13 @@ func spanError(src string, pos, end equation.Pos, msg string, suggest []string) 
 		length = max(1, utf8.RuneCountInString(src[pos:end]))
 	}
 	return RowError{Message: msg, Column: equation.Column(src, pos), Length: length, Suggestions: suggest}
+}
+
+func sortedKeys[V any](m map[string]V) []string {
+	keys := make([]string, 0, len(m))
+	for k := range m {
+		keys = append(keys, k)
+	}
+	slices.Sort(keys)
+	return keys
 }

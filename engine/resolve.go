@@ -10,7 +10,7 @@ import (
 	"gibbsheet/engine/thermo"
 )
 
-// DefaultCompartment is the compartment of every untagged name.
+// DefaultCompartment is the compartment of every untagged name unless the worksheet sets another.
 const DefaultCompartment = "c"
 
 // Library ids the evaluation treats specially.
@@ -19,54 +19,66 @@ const (
 	protonID = "H+"  // fixed by pH; left out of the transformed equation
 )
 
-// reactant is one compound of the worksheet as the evaluation knows it: where its data come from and the
-// values derived from them, computed once per evaluation.
-type reactant struct {
+// compound is a compound of the worksheet as the evaluation knows it, independent of compartment.
+type compound struct {
 	key     string // identity: library id or "own:" + own id
 	name    string // full name
 	lib     *compounds.Compound
 	own     *Compound
 	formula compounds.Formula // nil when unknown
+	species []thermo.Species
+	noData  string // why there are no data, when the compound has neither species nor an entered ΔfG'°
+	approx  string // non-empty: the data are approximate, and how
 
-	dfG0prime  float64 // kJ/mol at the worksheet's conditions; valid when hasData
-	hasData    bool
-	noData     string // why there are no data, when !hasData
-	approx     string // non-empty: the data are approximate, and how
-	noEnthalpy bool   // some species lacks ΔfH°, so the temperature is not followed
+	noEnthalpy bool // some species lacks ΔfH°, so the temperature is not followed
 }
 
-func (r *reactant) isWater() bool  { return r.lib != nil && r.lib.ID == waterID }
-func (r *reactant) isProton() bool { return r.lib != nil && r.lib.ID == protonID }
+func (c *compound) isWater() bool  { return c.lib != nil && c.lib.ID == waterID }
+func (c *compound) isProton() bool { return c.lib != nil && c.lib.ID == protonID }
+
+// reactant is a compound in one compartment, with its data transformed at that compartment's conditions.
+type reactant struct {
+	*compound
+	comp      *compartment
+	key       string  // compound key + "[" + compartment + "]"
+	dfG0prime float64 // kJ/mol; valid when hasData
+	hasData   bool
+	noData    string
+	meanH     float64 // N̄H at the compartment's conditions
+	meanZ     float64 // z̄ at the compartment's conditions
+}
 
 // normalName folds a name for case-insensitive matching of the worksheet's own compounds.
 func normalName(s string) string { return strings.ToLower(strings.Join(strings.Fields(s), " ")) }
 
 // catalog resolves the names written in a worksheet: its own compounds first, then the library.
 type catalog struct {
-	lib   *compounds.Library
-	own   map[string]*Compound // by normalName of id and name
-	cond  thermo.Conditions
-	cache map[string]*reactant
+	lib       *compounds.Library
+	own       map[string]*Compound // by normalName of id and name
+	names     map[string]*compound // by name as written; nil entries remember unknown names
+	compounds map[string]*compound // by identity
+	reactants map[string]*reactant // by reactant key
 }
 
-func newCatalog(lib *compounds.Library, ws *Worksheet, cond thermo.Conditions, errs *[]FieldError, warns *[]Warning) *catalog {
-	cat := &catalog{lib: lib, own: map[string]*Compound{}, cond: cond, cache: map[string]*reactant{}}
+func newCatalog(lib *compounds.Library, ws *Worksheet, ev *evaluation) *catalog {
+	cat := &catalog{lib: lib, own: map[string]*Compound{}, names: map[string]*compound{},
+		compounds: map[string]*compound{}, reactants: map[string]*reactant{}}
 	for i := range ws.Compounds {
 		c := &ws.Compounds[i]
 		path := fmt.Sprintf("compounds[%d]", i)
 		if strings.TrimSpace(c.ID) == "" {
-			*errs = append(*errs, FieldError{Path: path + ".id", Message: "a compound needs an id: the name used in equations"})
+			ev.fieldError(path+".id", "a compound needs an id: the name used in equations")
 			continue
 		}
 		if prev, dup := cat.own[normalName(c.ID)]; dup {
-			*errs = append(*errs, FieldError{Path: path + ".id", Message: fmt.Sprintf("compound id %q is defined twice (also as %q)", c.ID, prev.ID)})
+			ev.fieldError(path+".id", fmt.Sprintf("compound id %q is defined twice (also as %q)", c.ID, prev.ID))
 			continue
 		}
 		if msg := checkOwnCompound(c); msg != "" {
-			*errs = append(*errs, FieldError{Path: path, Message: msg})
+			ev.fieldError(path, msg)
 		}
 		if libc := lib.Lookup(c.ID); libc != nil {
-			*warns = append(*warns, Warning{Code: "own-shadows-library", Path: path + ".id",
+			ev.warn(Warning{Code: "own-shadows-library", Path: path + ".id",
 				Message: fmt.Sprintf("the worksheet's own compound %q is used in place of the library's %s", c.ID, libc.Name)})
 		}
 		cat.own[normalName(c.ID)] = c
@@ -101,84 +113,103 @@ func checkOwnCompound(c *Compound) string {
 }
 
 // resolve finds the compound a name refers to; nil when there is none.
-func (cat *catalog) resolve(name string) *reactant {
+func (cat *catalog) resolve(name string) *compound {
+	if c, seen := cat.names[name]; seen {
+		return c
+	}
+	var c *compound
 	if own, ok := cat.own[normalName(name)]; ok {
-		return cat.reactant("own:"+own.ID, func() *reactant { return cat.ownReactant(own) })
+		c = cat.compound("own:"+own.ID, func() *compound { return ownCompound(own) })
+	} else if libc := cat.lib.Lookup(name); libc != nil {
+		c = cat.compound(libc.ID, func() *compound { return libCompound(libc) })
 	}
-	if libc := cat.lib.Lookup(name); libc != nil {
-		return cat.reactant(libc.ID, func() *reactant { return cat.libReactant(libc) })
-	}
-	return nil
+	cat.names[name] = c
+	return c
 }
 
-// key resolves a name to its identity, for keys of concentrations and values.
+// key resolves a name to its identity, for keys of values.
 func (cat *catalog) key(name string) (string, bool) {
-	r := cat.resolve(name)
-	if r == nil {
-		return "", false
+	if c := cat.resolve(name); c != nil {
+		return c.key, true
 	}
-	return r.key, true
+	return "", false
 }
 
-func (cat *catalog) reactant(key string, build func() *reactant) *reactant {
-	if r, ok := cat.cache[key]; ok {
-		return r
+func (cat *catalog) compound(key string, build func() *compound) *compound {
+	if c, ok := cat.compounds[key]; ok {
+		return c
 	}
-	r := build()
-	cat.cache[key] = r
-	return r
+	c := build()
+	cat.compounds[key] = c
+	return c
 }
 
-func (cat *catalog) libReactant(c *compounds.Compound) *reactant {
-	r := &reactant{key: c.ID, name: c.Name, lib: c, approx: c.Approximation}
+func libCompound(c *compounds.Compound) *compound {
+	out := &compound{key: c.ID, name: c.Name, lib: c, approx: c.Approximation, species: c.Species}
 	if f, err := compounds.ParseFormula(c.Formula); err == nil {
-		r.formula = f
+		out.formula = f
 	}
-	cat.transform(r, c.Species)
-	return r
+	if len(c.Species) == 0 && c.ID != protonID {
+		out.noData = fmt.Sprintf("no species data for %s", c.Name)
+	}
+	out.noEnthalpy = missingEnthalpy(c.Species)
+	return out
 }
 
-func (cat *catalog) ownReactant(c *Compound) *reactant {
-	r := &reactant{key: "own:" + c.ID, name: c.Name, own: c}
-	if r.name == "" {
-		r.name = c.ID
+func ownCompound(c *Compound) *compound {
+	out := &compound{key: "own:" + c.ID, name: c.Name, own: c, species: c.Species}
+	if out.name == "" {
+		out.name = c.ID
 	}
 	if f, err := compounds.ParseFormula(c.Formula); c.Formula != "" && err == nil {
-		r.formula = f
+		out.formula = f
 	}
 	switch {
 	case checkOwnCompound(c) != "":
-		r.noData = fmt.Sprintf("the data of compound %q are not usable (see the compound)", c.ID)
-	case c.DfG0Prime != nil:
-		r.dfG0prime, r.hasData = *c.DfG0Prime, true
-	case len(c.Species) > 0:
-		cat.transform(r, c.Species)
-	default:
-		r.noData = fmt.Sprintf("%q has no thermodynamic data: enter the row's ΔrG'°, or give the compound species data or a ΔfG'°", c.ID)
+		out.noData = fmt.Sprintf("the data of compound %q are not usable (see the compound)", c.ID)
+		out.species = nil
+	case c.DfG0Prime == nil && len(c.Species) == 0:
+		out.noData = fmt.Sprintf("%q has no thermodynamic data: enter the row's ΔrG'°, or give the compound species data or a ΔfG'°", c.ID)
 	}
-	return r
+	out.noEnthalpy = missingEnthalpy(c.Species)
+	return out
 }
 
-// transform computes the reactant's ΔfG'° at the worksheet's conditions (Alberty's transform, see thermo).
-func (cat *catalog) transform(r *reactant, sp []thermo.Species) {
-	if len(sp) == 0 {
-		if r.lib != nil && r.lib.ID == protonID {
-			return // H+ carries no transformed energy: pH fixes it
+func missingEnthalpy(sp []thermo.Species) bool {
+	return slices.ContainsFunc(sp, func(s thermo.Species) bool { return s.DfH0 == nil })
+}
+
+// reactant returns the compound in a compartment, transformed at its conditions (Alberty's transform, see
+// thermo) once per evaluation.
+func (cat *catalog) reactant(c *compound, comp *compartment) *reactant {
+	key := c.key + "[" + comp.id + "]"
+	if r, ok := cat.reactants[key]; ok {
+		return r
+	}
+	r := &reactant{compound: c, comp: comp, key: key, noData: c.noData}
+	switch {
+	case c.isProton():
+		r.hasData, r.meanH, r.meanZ = true, 1, 1 // ΔfG'°(H+) = 0: the pH fixes it
+	case c.noData != "":
+	case c.own != nil && c.own.DfG0Prime != nil:
+		r.dfG0prime, r.hasData = *c.own.DfG0Prime, true
+		if c.own.Charge != nil {
+			r.meanZ = float64(*c.own.Charge)
 		}
-		r.noData = fmt.Sprintf("no species data for %s", r.name)
-		return
-	}
-	g, err := thermo.ReactantDfG0Prime(sp, cat.cond)
-	if err != nil || math.IsNaN(g) {
-		r.noData = fmt.Sprintf("cannot transform %s: %v", r.name, err)
-		return
-	}
-	r.dfG0prime, r.hasData = g, true
-	for _, s := range sp {
-		if s.DfH0 == nil {
-			r.noEnthalpy = true
+	case !comp.ok:
+		r.noData = fmt.Sprintf("the conditions of compartment %q are not usable", comp.id)
+	default:
+		g, err := thermo.ReactantDfG0Prime(c.species, comp.cond)
+		if err != nil || math.IsNaN(g) {
+			r.noData = fmt.Sprintf("cannot transform %s: %v", c.name, err)
+			break
 		}
+		r.dfG0prime, r.hasData = g, true
+		r.meanH = thermo.MeanBoundH(c.species, comp.cond)
+		r.meanZ = thermo.MeanCharge(c.species, comp.cond)
 	}
+	cat.reactants[key] = r
+	return r
 }
 
 // suggestions lists the names nearest to an unknown one: the worksheet's own compounds that share its start,

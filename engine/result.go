@@ -21,33 +21,56 @@ const (
 // RowResult is one evaluated row. DG0 and DG are per reaction as written (kJ/mol); Cost includes the row's
 // multiplier.
 type RowResult struct {
-	ID       string     `json:"id"`
-	Equation string     `json:"equation"`
-	Times    float64    `json:"times"`
-	DG0      *float64   `json:"dG0"`
-	DG       *float64   `json:"dG"`
-	K        *float64   `json:"K"`
-	Q        *float64   `json:"Q"`
-	Log10K   *float64   `json:"log10K"`
-	Log10Q   *float64   `json:"log10Q"`
-	Status   string     `json:"status"`
-	Cost     *Cost      `json:"cost"`
-	Warnings []Warning  `json:"warnings"`
-	Error    *RowError  `json:"error,omitempty"`
-	Errors   []RowError `json:"errors,omitempty"`
+	ID        string     `json:"id"`
+	Equation  string     `json:"equation"`
+	Times     float64    `json:"times"`
+	DG0       *float64   `json:"dG0"`
+	DG        *float64   `json:"dG"`
+	K         *float64   `json:"K"`
+	Q         *float64   `json:"Q"`
+	Log10K    *float64   `json:"log10K"`
+	Log10Q    *float64   `json:"log10Q"`
+	Status    string     `json:"status"`
+	Cost      *Cost      `json:"cost"`
+	Warnings  []Warning  `json:"warnings"`
+	Transport *Transport `json:"transport,omitempty"`
+	Error     *RowError  `json:"error,omitempty"`
+	Errors    []RowError `json:"errors,omitempty"`
+}
+
+// Transport describes what a row moves between compartments: each move, and the work of moving (the
+// pH and membrane-potential terms, kJ/mol, included in the row's ΔrG'°).
+type Transport struct {
+	Moves []Move  `json:"moves"`
+	Work  float64 `json:"work"`
+}
+
+// Move is an amount of one compound carried from one compartment to another by a row.
+type Move struct {
+	Compound string  `json:"compound"`
+	From     string  `json:"from"`
+	To       string  `json:"to"`
+	Amount   float64 `json:"amount"`
+	Work     float64 `json:"work"` // kJ per mole moved
 }
 
 // Cost in ATP equivalents: positive is spent, negative is gained. Reducing counts reduced carriers; Total
 // adds Phosphate and each carrier weighted by its P/O ratio.
+// Protons counts protons let back across a membrane down their gradient (negative: pumped out), and
+// ProtonATP their worth in ATP at the protons-per-ATP value in use; Total includes it.
 type Cost struct {
 	Phosphate float64 `json:"phosphate"`
 	Reducing  float64 `json:"reducing"`
+	Protons   float64 `json:"protons"`
+	ProtonATP float64 `json:"protonATP"`
 	Total     float64 `json:"total"`
 }
 
 func (c *Cost) add(d Cost) {
 	c.Phosphate += d.Phosphate
 	c.Reducing += d.Reducing
+	c.Protons += d.Protons
+	c.ProtonATP += d.ProtonATP
 	c.Total += d.Total
 }
 
@@ -84,7 +107,8 @@ type Total struct {
 
 // CompoundUse describes a compound that appears in the rows, in order of first appearance.
 type CompoundUse struct {
-	ID            string   `json:"id"`      // as first written in an equation, in normal form
+	ID            string   `json:"id"` // as first written in an equation, in normal form, with its tag
+	Compartment   string   `json:"compartment"`
 	Name          string   `json:"name"`    // full name
 	Library       string   `json:"library"` // library id, "" for the worksheet's own compounds
 	Own           bool     `json:"own"`     // one of the worksheet's own compounds
@@ -98,9 +122,10 @@ type CompoundUse struct {
 
 // ValueUsed is the energy value of a compound in use.
 type ValueUsed struct {
-	Phosphate float64 `json:"phosphate"`
-	Reducing  float64 `json:"reducing"`
-	PO        float64 `json:"po"`
+	Phosphate     float64 `json:"phosphate"`
+	Reducing      float64 `json:"reducing"`
+	PO            float64 `json:"po"`
+	ProtonsPerATP float64 `json:"protonsPerATP,omitempty"`
 }
 
 // ConditionsUsed are the conditions after defaults are filled in; PMg is nil when magnesium is ignored.

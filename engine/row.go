@@ -10,11 +10,13 @@ import (
 
 // row evaluates one reaction row:
 //
-//	ΔrG'° = Σ ν_i ΔfG'°_i          (Alberty 2003, eq. 4.4-2; or the entered dG0)
+//	ΔrG'° = Σ ν_i ΔfG'°_i + W      (Alberty 2003, eq. 4.4-2, each reactant at its compartment's
+//	                                 conditions; W the transport work, see transport; or the entered dG0)
 //	Q     = Π c_i^ν_i              (c in mol/L over 1 M; water at activity 1, H+ left out)
 //	ΔrG'  = ΔrG'° + RT ln Q,   K' = exp(−ΔrG'°/RT)
 //
-// It returns the row's result and its stoichiometry (nil when the row has errors).
+// It returns the row's result and its stoichiometry; the stoichiometry is nil when the row cannot enter
+// the totals.
 func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 	out := RowResult{ID: in.ID, Equation: in.Equation, Times: 1, Warnings: []Warning{}}
 	var errs []RowError
@@ -37,18 +39,15 @@ func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 	}
 	out.Equation = eq.String()
 	nu, termErrs := ev.resolveTerms(in, eq, &out)
-	errs = append(errs, termErrs...)
-	if len(errs) > 0 {
+	if errs = append(errs, termErrs...); len(errs) > 0 {
 		return finishRow(out, errs), nil
 	}
+	moves := ev.transport(nu, &out)
 
-	dg0, dataErrs := ev.standardEnergy(in, eq, nu, &out)
+	dg0, dataErrs := ev.standardEnergy(in, nu, &out)
 	lnQ, concErrs := ev.lnQ(in.Equation, nu)
-	if errs = append(dataErrs, concErrs...); len(errs) > 0 && dg0 == nil {
-		return finishRow(out, errs), nil
-	}
 	out.Cost = new(Cost)
-	*out.Cost = ev.values.cost(nu, out.Times)
+	*out.Cost = ev.values.cost(nu, protonsDown(moves), out.Times)
 	ev.costNotes(nu, &out)
 	ev.balance(nu, &out)
 	if dg0 != nil {
@@ -71,7 +70,7 @@ func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 			}
 		}
 	}
-	if len(errs) > 0 {
+	if errs = append(dataErrs, concErrs...); len(errs) > 0 {
 		return finishRow(out, errs), nil
 	}
 	return out, nu
@@ -103,21 +102,24 @@ func (ev *evaluation) status(dg float64) string {
 	return StatusDownhill
 }
 
-// resolveTerms maps every term to its compound and adds up the signed coefficients; a compound on both sides
-// keeps its net coefficient. Unknown names and compartments are errors at their columns.
+// resolveTerms maps every term to its reactant (compound and compartment) and adds up the signed
+// coefficients; a reactant on both sides keeps its net coefficient. Unknown names and compartments are
+// errors at their columns. H+ stays only where it crosses a membrane (it appears in two compartments);
+// elsewhere the pH fixes it and it is dropped with a note.
 func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResult) ([]stoich, []RowError) {
 	var nu []stoich
 	var errs []RowError
 	index := map[string]int{}
+	protonComps := map[string]bool{}
 	add := func(t equation.Term, sign int64) {
-		if t.Compartment != "" && t.Compartment != DefaultCompartment {
+		comp := ev.compartmentOf(t.Compartment)
+		if comp == nil {
 			errs = append(errs, spanError(in.Equation, t.NameEnd, t.NameEnd+equation.Pos(len(t.Compartment)+2),
-				fmt.Sprintf("unknown compartment %q: this worksheet has only the default compartment %q",
-					t.Compartment, DefaultCompartment), nil))
+				fmt.Sprintf("unknown compartment %q: the worksheet has %s", t.Compartment, ev.compartmentIDs()), nil))
 			return
 		}
-		r := ev.cat.resolve(t.Name)
-		if r == nil {
+		c := ev.cat.resolve(t.Name)
+		if c == nil {
 			sugg := ev.cat.suggestions(t.Name)
 			msg := fmt.Sprintf("unknown compound %q", t.Name)
 			if len(sugg) > 0 {
@@ -126,12 +128,10 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 			errs = append(errs, spanError(in.Equation, t.NamePos, t.NameEnd, msg, sugg))
 			return
 		}
-		if r.isProton() {
-			out.Warnings = append(out.Warnings, Warning{Code: "proton", Message: "H+ is left out of the " +
-				"transformed equation: the pH fixes its concentration, so it carries no term"})
-			return
+		r := ev.cat.reactant(c, comp)
+		if c.isProton() {
+			protonComps[comp.id] = true
 		}
-		ev.use(r, t, in.ID)
 		coef := new(big.Rat).SetFrac64(sign*t.Coef.Num, t.Coef.Den)
 		if i, ok := index[r.key]; ok {
 			nu[i].rat.Add(nu[i].rat, coef)
@@ -148,27 +148,51 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 	for _, t := range eq.Right {
 		add(t, 1)
 	}
+	if len(protonComps) == 1 {
+		kept := nu[:0]
+		for _, s := range nu {
+			if !s.r.isProton() {
+				kept = append(kept, s)
+			}
+		}
+		nu = kept
+		out.Warnings = append(out.Warnings, Warning{Code: "proton", Message: "H+ is left out of the " +
+			"transformed equation: the pH fixes its concentration, so it carries no term"})
+	}
+	for _, s := range nu {
+		if s.coef != 0 && !s.r.isProton() {
+			ev.use(s.r, s.term, in.ID)
+		}
+	}
 	return nu, errs
 }
 
-// standardEnergy is ΔrG'° of the row: entered, or Σ ν ΔfG'° over compounds with data. A compound without
-// data is an error unless a ΔrG'° was entered.
-func (ev *evaluation) standardEnergy(in *Row, eq *equation.Equation, nu []stoich, out *RowResult) (*float64, []RowError) {
+// standardEnergy is ΔrG'° of the row: entered, or Σ ν ΔfG'° over reactants with data plus the transport
+// work already put in out.Transport. A reactant without data is an error unless a ΔrG'° was entered.
+func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*float64, []RowError) {
 	var errs []RowError
 	var sum float64
+	if out.Transport != nil {
+		sum = out.Transport.Work
+	}
+	warned := map[string]bool{}
 	for _, s := range nu {
 		r := s.r
+		once := func(code, msg string) {
+			if !warned[code+r.compound.key] {
+				warned[code+r.compound.key] = true
+				out.Warnings = append(out.Warnings, Warning{Code: code, Message: msg})
+			}
+		}
 		if r.approx != "" {
-			out.Warnings = append(out.Warnings, Warning{Code: "approximate-data",
-				Message: fmt.Sprintf("the data for %s are approximate: %s", r.name, r.approx)})
+			once("approximate-data", fmt.Sprintf("the data for %s are approximate: %s", r.name, r.approx))
 		}
 		if r.noEnthalpy && math.Abs(ev.cond.Temperature-DefaultTemperature) > 1 && in.DG0 == nil {
-			out.Warnings = append(out.Warnings, Warning{Code: "no-enthalpy", Message: fmt.Sprintf(
-				"no ΔfH° is known for %s: its energy is held at the 298.15 K value", r.name)})
+			once("no-enthalpy", fmt.Sprintf("no ΔfH° is known for %s: its energy is held at the 298.15 K value", r.name))
 		}
 		if r.own != nil && r.own.DfG0Prime != nil && in.DG0 == nil {
-			out.Warnings = append(out.Warnings, Warning{Code: "entered-formation-energy", Message: fmt.Sprintf(
-				"ΔfG'° of %s is used as entered and does not follow changes of pH, I, pMg or temperature", r.name)})
+			once("entered-formation-energy", fmt.Sprintf("ΔfG'° of %s is used as entered and does not follow "+
+				"changes of pH, I, pMg or temperature", r.name))
 		}
 		if !r.hasData {
 			if in.DG0 == nil {
@@ -193,18 +217,16 @@ func (ev *evaluation) standardEnergy(in *Row, eq *equation.Equation, nu []stoich
 	return &sum, nil
 }
 
-// lnQ is ln of the mass-action ratio with concentrations in mol/L; water counts at activity 1.
+// lnQ is ln of the mass-action ratio with concentrations in mol/L; water counts at activity 1 and H+ is
+// fixed by each compartment's pH, so neither enters.
 func (ev *evaluation) lnQ(src string, nu []stoich) (float64, []RowError) {
 	var lnQ float64
 	var errs []RowError
 	for _, s := range nu {
-		if s.r.isWater() || s.coef == 0 {
+		if s.r.isWater() || s.r.isProton() || s.coef == 0 {
 			continue
 		}
-		c, ok := ev.conc[s.key]
-		if !ok {
-			c = ev.defc
-		}
+		c, _ := ev.concentrationOf(s.r)
 		if c.err != "" {
 			errs = append(errs, spanError(src, s.term.NamePos, s.term.NameEnd,
 				fmt.Sprintf("the concentration of %s (%q) is not usable: %s", s.r.name, c.text, c.err), nil))
@@ -218,8 +240,9 @@ func (ev *evaluation) lnQ(src string, nu []stoich) (float64, []RowError) {
 // costNotes explains cost values that rest on an assumption.
 func (ev *evaluation) costNotes(nu []stoich, out *RowResult) {
 	for _, s := range nu {
-		if s.key == "PPi" && !ev.values.overridden[s.key] {
+		if s.r.compound.key == "PPi" && s.coef != 0 && !ev.values.overridden["PPi"] {
 			out.Warnings = append(out.Warnings, Warning{Code: "pyrophosphate", Message: pyrophosphateNote})
+			return
 		}
 	}
 }

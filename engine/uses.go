@@ -13,7 +13,8 @@ func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
 		}
 		return
 	}
-	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name, Name: r.name, Rows: []string{rowID}})
+	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name + tagOf(t.Compartment), Name: r.name,
+		Compartment: r.comp.id, Rows: []string{rowID}})
 	u := &ev.res.Compounds[len(ev.res.Compounds)-1]
 	if r.lib != nil {
 		u.Library = r.lib.ID
@@ -28,10 +29,7 @@ func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
 	case r.isWater():
 		u.Fixed = "activity 1"
 	default:
-		c, given := ev.conc[r.key]
-		if !given {
-			c = ev.defc
-		}
+		c, given := ev.concentrationOf(r)
 		u.Text, u.AtDefault = c.text, !given
 		if c.err == "" {
 			m := c.molar
@@ -39,4 +37,11 @@ func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
 		}
 	}
 	ev.uses[r.key] = len(ev.res.Compounds) - 1
+}
+
+func tagOf(compartment string) string {
+	if compartment == "" {
+		return ""
+	}
+	return "[" + compartment + "]"
 }

@@ -30,7 +30,17 @@ type Worksheet struct {
 	Compounds            []Compound        `json:"compounds,omitempty"`
 	Values               map[string]Value  `json:"values,omitempty"`
 	NearEquilibrium      *float64          `json:"nearEquilibrium,omitempty"`
+	Compartments         []Compartment     `json:"compartments,omitempty"`
+	DefaultCompartment   string            `json:"defaultCompartment,omitempty"`
+	Bounds               *Bounds           `json:"bounds,omitempty"`
 	Rows                 []Row             `json:"rows"`
+}
+
+// Bounds limit the concentrations the max-min driving force may choose: Default as [low, high] with units
+// (absent: 1 µM to 10 mM, common practice) and per-compound entries; low = high holds a compound fixed.
+type Bounds struct {
+	Default   []string            `json:"default,omitempty"`
+	Compounds map[string][]string `json:"compounds,omitempty"`
 }
 
 // Conditions of the worksheet. Absent fields take their defaults (pH 7, 0.25 M, magnesium ignored,
@@ -56,10 +66,12 @@ type Compound struct {
 
 // Value overrides the energy values of one compound: Phosphate in ATP equivalents per mole (ATP 2, ADP 1),
 // Reducing in reduced carriers per mole (NADH 1), PO in ATP per reduced carrier (the P/O ratio, NADH 2.5).
+// ProtonsPerATP, set on "H+", is how many protons moved across a membrane are worth one ATP.
 type Value struct {
-	Phosphate *float64 `json:"phosphate,omitempty"`
-	Reducing  *float64 `json:"reducing,omitempty"`
-	PO        *float64 `json:"po,omitempty"`
+	Phosphate     *float64 `json:"phosphate,omitempty"`
+	Reducing      *float64 `json:"reducing,omitempty"`
+	PO            *float64 `json:"po,omitempty"`
+	ProtonsPerATP *float64 `json:"protonsPerATP,omitempty"`
 }
 
 // Row is one reaction of the worksheet. Times multiplies it in the pathway (2 per glucose for the lower half
@@ -189,6 +201,10 @@ func unknownFields(data []byte) []string {
 			out = append(out, unknownInList(v, "rows", fieldSet(Row{}))...)
 		case "compounds":
 			out = append(out, unknownInList(v, "compounds", fieldSet(Compound{}))...)
+		case "compartments":
+			out = append(out, unknownInList(v, "compartments", fieldSet(Compartment{}))...)
+		case "bounds":
+			out = append(out, unknownIn(v, "bounds", fieldSet(Bounds{}))...)
 		}
 	}
 	slices.Sort(out)
