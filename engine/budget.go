@@ -124,6 +124,10 @@ func (c *Cost) scale(f float64) {
 	c.Total *= f
 }
 
+func (c *Cost) finite() bool {
+	return finite(c.Phosphate) && finite(c.Reducing) && finite(c.Protons) && finite(c.ProtonATP) && finite(c.Total)
+}
+
 // clean removes the −0 and rounding dust (below 1e-12) that sums of exact small values leave.
 func (c *Cost) clean() {
 	for _, x := range []*float64{&c.Phosphate, &c.Reducing, &c.Protons, &c.ProtonATP, &c.Total} {

@@ -102,6 +102,11 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 	}
 	total.Equation = net.String()
 	total.Cost.clean()
+	total.DG0, total.DG = finiteOrNil(deref(total.DG0)), finiteOrNil(deref(total.DG))
+	if !total.Cost.finite() {
+		total.Cost = Cost{}
+		ev.warn(Warning{Code: "total-out-of-range", Path: "rows", Message: "the total cost is out of range and is not shown"})
+	}
 	res.Total = total
 	res.Values = ev.values.used(ev.cat)
 	res.Conditions = conditionsUsed(cond, ev.band)
@@ -109,6 +114,13 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 		res.Errors = nil
 	}
 	return res
+}
+
+func deref(p *float64) float64 {
+	if p == nil {
+		return math.NaN()
+	}
+	return *p
 }
 
 func (ev *evaluation) fieldError(path, msg string) {

@@ -23,6 +23,9 @@ func FuzzEvaluateJSON(f *testing.F) {
 			if out != nil {
 				t.Fatal("error with output")
 			}
+			if _, _, derr := Decode(data); derr == nil {
+				t.Fatalf("a readable worksheet failed to evaluate: %v", err)
+			}
 			return
 		}
 		var res Result

@@ -54,12 +54,12 @@ func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 		out.DG0 = dg0
 		logK := -*dg0 / (ev.rt * math.Ln10)
 		out.Log10K = &logK
-		out.K = finiteOrNil(math.Pow(10, logK))
+		out.K = positiveOrNil(math.Pow(10, logK))
 	}
 	if len(concErrs) == 0 {
 		logQ := lnQ / math.Ln10
 		out.Log10Q = &logQ
-		out.Q = finiteOrNil(math.Exp(lnQ))
+		out.Q = positiveOrNil(math.Exp(lnQ))
 		if dg0 != nil {
 			dg := *dg0 + ev.rt*lnQ
 			out.DG = &dg
@@ -73,7 +73,32 @@ func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 	if errs = append(dataErrs, concErrs...); len(errs) > 0 {
 		return finishRow(out, errs), nil
 	}
+	if !out.finite() {
+		return finishRow(RowResult{ID: out.ID, Equation: out.Equation, Times: out.Times, Warnings: out.Warnings},
+			[]RowError{{Message: "the numbers of this row are out of range: check the coefficients, the " +
+				"multiplier and the data of its compounds"}}), nil
+	}
 	return out, nu
+}
+
+// finite reports whether every number of the row can be written in JSON (no overflow to ±Inf or NaN).
+func (r *RowResult) finite() bool {
+	nums := []*float64{r.DG0, r.DG, r.K, r.Q, r.Log10K, r.Log10Q}
+	if r.Cost != nil {
+		nums = append(nums, &r.Cost.Phosphate, &r.Cost.Reducing, &r.Cost.Protons, &r.Cost.ProtonATP, &r.Cost.Total)
+	}
+	if r.Transport != nil {
+		nums = append(nums, &r.Transport.Work)
+		for i := range r.Transport.Moves {
+			nums = append(nums, &r.Transport.Moves[i].Amount, &r.Transport.Moves[i].Work)
+		}
+	}
+	for _, x := range nums {
+		if x != nil && !finite(*x) {
+			return false
+		}
+	}
+	return finite(r.Times)
 }
 
 func finishRow(out RowResult, errs []RowError) RowResult {
@@ -85,8 +110,18 @@ func finishRow(out RowResult, errs []RowError) RowResult {
 	return out
 }
 
+// positiveOrNil is for K' and Q, which are positive: nil where they overflow or underflow float64 (log10K
+// and log10Q still carry them).
+func positiveOrNil(x float64) *float64 {
+	if !finite(x) || x <= 0 {
+		return nil
+	}
+	return &x
+}
+
+// finiteOrNil is nil for a number that JSON cannot carry.
 func finiteOrNil(x float64) *float64 {
-	if !finite(x) || x == 0 {
+	if !finite(x) {
 		return nil
 	}
 	return &x

@@ -22,8 +22,7 @@ func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
 		u.Own = true
 	}
 	if r.hasData {
-		g := r.dfG0prime
-		u.DfG0Prime = &g
+		u.DfG0Prime = finiteOrNil(r.dfG0prime)
 	}
 	switch {
 	case r.isWater():

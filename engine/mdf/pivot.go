@@ -1,0 +1,157 @@
+package mdf
+
+import (
+	"fmt"
+	"math"
+)
+
+// pivot moves entering variable q in direction dir (+1 or −1) until a basic
+// variable reaches a bound or q reaches its other bound (ratio test), and
+// updates the basis.
+func (sx *simplex) pivot(q, dir int) error {
+	lp, n := sx.lp, sx.lp.n
+	slackRow := -1 // row whose slack enters, if q is a slack
+	if q > n {
+		slackRow = q - n - 1
+	}
+	// alpha = K⁻¹ a_q[T]; w = a_q − A[:, P] alpha on rows outside T.
+	alpha := sx.alpha
+	clear(alpha)
+	clear(sx.w)
+	if slackRow >= 0 {
+		alpha[sx.tPos[slackRow]] = 1
+	} else {
+		for e := lp.colStart[q]; e < lp.colStart[q+1]; e++ {
+			j := lp.colRow[e]
+			if r := sx.tPos[j]; r >= 0 {
+				alpha[r] = lp.colVal[e]
+			} else {
+				sx.w[j] = lp.colVal[e]
+			}
+		}
+	}
+	sx.lu.solve(alpha, sx.tmp)
+	for c, p := range sx.P {
+		a := alpha[c]
+		if a == 0 {
+			continue
+		}
+		if p == n {
+			for j := range sx.w {
+				sx.w[j] -= a
+			}
+			continue
+		}
+		for e := lp.colStart[p]; e < lp.colStart[p+1]; e++ {
+			sx.w[lp.colRow[e]] -= lp.colVal[e] * a
+		}
+	}
+
+	// Ratio test. A basic variable changes by δ·t when q moves by dir·t,
+	// with δ = −dir·alpha (structural) or −dir·w (slack).
+	const flip = -1
+	tBest, leave, leaveIdx, leavePiv := math.Inf(1), -2, 0, 0.0
+	if slackRow < 0 {
+		tBest, leave, leavePiv = lp.up[q]-lp.lo[q], flip, math.Inf(1)
+	}
+	consider := func(t float64, idx int, piv float64) {
+		switch {
+		case t < tBest-ratioTieTol:
+		case t > tBest+ratioTieTol:
+			return
+		case sx.bland:
+			if leave != flip && idx < leaveIdx {
+				break
+			}
+			return
+		default:
+			if piv > leavePiv {
+				break
+			}
+			return
+		}
+		tBest, leave, leaveIdx, leavePiv = math.Max(t, 0), idx, idx, piv
+	}
+	for c, p := range sx.P {
+		if p == n {
+			continue
+		}
+		switch delta := -float64(dir) * alpha[c]; {
+		case delta < -pivTol:
+			consider((sx.x[p]-lp.lo[p])/-delta, p, -delta)
+		case delta > pivTol:
+			consider((lp.up[p]-sx.x[p])/delta, p, delta)
+		}
+	}
+	for j, wj := range sx.w {
+		if sx.tPos[j] >= 0 {
+			continue
+		}
+		if delta := -float64(dir) * wj; delta < -pivTol {
+			consider(math.Max(sx.s[j], 0)/-delta, n+1+j, -delta)
+		}
+	}
+	if leave == -2 {
+		return fmt.Errorf("%w: unbounded direction at pivot %d", ErrNumerical, sx.iters)
+	}
+	if tBest <= degenerateTol {
+		if sx.degen++; sx.degen >= blandAfter {
+			sx.bland = true
+		}
+	} else {
+		sx.degen = 0
+	}
+
+	switch {
+	case leave == flip:
+		if dir > 0 {
+			sx.x[q], sx.st[q] = lp.up[q], atUpper
+		} else {
+			sx.x[q], sx.st[q] = lp.lo[q], atLower
+		}
+	case leave < n: // a basic compound reaches a bound
+		c := sx.pPos[leave]
+		if -float64(dir)*alpha[c] < 0 {
+			sx.x[leave], sx.st[leave] = lp.lo[leave], atLower
+		} else {
+			sx.x[leave], sx.st[leave] = lp.up[leave], atUpper
+		}
+		sx.pPos[leave] = -1
+		if slackRow < 0 {
+			sx.P[c], sx.pPos[q], sx.st[q] = q, c, basic
+		} else {
+			sx.removeP(c)
+			sx.removeT(sx.tPos[slackRow])
+		}
+	default: // the slack of a loose row reaches zero: the row becomes tight
+		j := leave - n - 1
+		if slackRow < 0 {
+			sx.pPos[q], sx.st[q] = len(sx.P), basic
+			sx.P = append(sx.P, q)
+			sx.tPos[j] = len(sx.T)
+			sx.T = append(sx.T, j)
+		} else {
+			r := sx.tPos[slackRow]
+			sx.tPos[slackRow], sx.tPos[j], sx.T[r] = -1, r, j
+		}
+	}
+	return nil
+}
+
+// removeP deletes position c of P by moving the last entry into it.
+func (sx *simplex) removeP(c int) {
+	last, v := len(sx.P)-1, sx.P[c]
+	sx.P[c] = sx.P[last]
+	sx.pPos[sx.P[c]] = c
+	sx.pPos[v] = -1
+	sx.P = sx.P[:last]
+}
+
+// removeT deletes position r of T by moving the last entry into it.
+func (sx *simplex) removeT(r int) {
+	last, j := len(sx.T)-1, sx.T[r]
+	sx.T[r] = sx.T[last]
+	sx.tPos[sx.T[r]] = r
+	sx.tPos[j] = -1
+	sx.T = sx.T[:last]
+}
