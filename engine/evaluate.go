@@ -76,9 +76,13 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 	var net netReaction
 	total := Total{DG0: new(float64), DG: new(float64)}
 	var incomplete []string
+	var computed []computedRow
 	for i := range ws.Rows {
 		row, nu := ev.row(&ws.Rows[i])
 		res.Rows = append(res.Rows, row)
+		if nu != nil {
+			computed = append(computed, computedRow{index: i, nu: nu})
+		}
 		if nu == nil {
 			incomplete = append(incomplete, row.ID)
 			total.DG0, total.DG = nil, nil
@@ -108,6 +112,7 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 		ev.warn(Warning{Code: "total-out-of-range", Path: "rows", Message: "the total cost is out of range and is not shown"})
 	}
 	res.Total = total
+	ev.analyse(computed)
 	res.Values = ev.values.used(ev.cat)
 	res.Conditions = conditionsUsed(cond, ev.band)
 	if len(res.Errors) == 0 {

@@ -9,6 +9,7 @@ type Result struct {
 	Conditions ConditionsUsed       `json:"conditions"`
 	Warnings   []Warning            `json:"warnings"`
 	Errors     []FieldError         `json:"errors,omitempty"`
+	MDF        *MDF                 `json:"mdf"`
 }
 
 // Status of a row at the entered concentrations.
@@ -34,6 +35,8 @@ type RowResult struct {
 	Cost      *Cost      `json:"cost"`
 	Warnings  []Warning  `json:"warnings"`
 	Transport *Transport `json:"transport,omitempty"`
+	FluxForce *FluxForce `json:"fluxForce,omitempty"`
+	Remedy    *Remedy    `json:"toDownhill,omitempty"`
 	Error     *RowError  `json:"error,omitempty"`
 	Errors    []RowError `json:"errors,omitempty"`
 }

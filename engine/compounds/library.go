@@ -111,9 +111,11 @@ func (l *Library) All() []*Compound { return append([]*Compound(nil), l.all...) 
 // leading and trailing space, and runs of inner space, and treats the primes ' ′ ’ alike.
 func (l *Library) Lookup(name string) *Compound { return l.index[normalize(name)] }
 
+// primes maps the prime variants people type to '.
+var primes = strings.NewReplacer("′", "'", "’", "'", "‘", "'")
+
 // normalize folds case, trims and collapses spaces, and maps the prime variants to '.
 func normalize(s string) string {
 	s = strings.Join(strings.Fields(s), " ")
-	s = strings.NewReplacer("′", "'", "’", "'", "‘", "'").Replace(s)
-	return strings.ToLower(s)
+	return strings.ToLower(primes.Replace(s))
 }

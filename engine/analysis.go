@@ -1,0 +1,230 @@
+package engine
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"gibbsheet/engine/mdf"
+)
+
+// MDF is the max-min driving force of the pathway (Noor et al., PLoS Comput Biol 10:e1003483, 2014): the
+// largest value that the smallest driving force −ΔrG' of the rows can take for concentrations within the
+// bounds, with the concentrations that reach it.
+type MDF struct {
+	DrivingForce   float64           `json:"drivingForce"` // kJ/mol; negative: no concentrations drive every row
+	Bottlenecks    []string          `json:"bottlenecks"`  // ids of the rows whose constraint binds
+	Concentrations []OptimalConc     `json:"concentrations"`
+	Rows           []MDFRow          `json:"rows"`
+	Binding        []BindingBound    `json:"binding"` // the bounds that limit the MDF
+	LeftOut        []string          `json:"leftOut"` // rows without ΔrG'°, not in the analysis
+	Message        string            `json:"message"`
+	Solver         map[string]string `json:"-"`
+}
+
+// OptimalConc is one compound's concentration at the MDF optimum (mol/L), beside its bounds and the
+// concentration in use in the rows.
+type OptimalConc struct {
+	Compound      string  `json:"compound"`
+	Concentration float64 `json:"concentration"`
+	Entered       float64 `json:"entered"`
+	Low           float64 `json:"low"`
+	High          float64 `json:"high"`
+}
+
+// MDFRow is a row's driving force at the optimum; Shadow is how much the MDF falls per kJ/mol added to the
+// row's ΔrG'° (the dual value; the shadows sum to 1).
+type MDFRow struct {
+	ID           string  `json:"id"`
+	DrivingForce float64 `json:"drivingForce"`
+	Shadow       float64 `json:"shadow"`
+	Bottleneck   bool    `json:"bottleneck"`
+}
+
+// BindingBound is a concentration bound that holds the MDF down: relaxing it would raise the MDF.
+type BindingBound struct {
+	Compound string  `json:"compound"`
+	Side     string  `json:"side"` // "low" or "high"
+	Bound    float64 `json:"bound"`
+}
+
+// FluxForce relates a row's ΔrG' to its one-way fluxes (Beard and Qian, PLoS ONE 2:e144, 2007):
+// J+/J− = exp(−ΔrG'/RT). ReverseShare = J−/J+ (at most 1) is the share of the forward flux that the reverse
+// flux cancels.
+type FluxForce struct {
+	Ratio        *float64 `json:"ratio"` // nil where it overflows; Log10Ratio still carries it
+	Log10Ratio   float64  `json:"log10Ratio"`
+	ReverseShare float64  `json:"reverseShare"`
+}
+
+// Remedy is the smallest change of one concentration, within its bounds, that brings an uphill row to
+// ΔrG' = 0; any further change makes it downhill.
+type Remedy struct {
+	Compound string  `json:"compound"`
+	From     float64 `json:"from"`   // mol/L, in use now
+	To       float64 `json:"to"`     // mol/L
+	Factor   float64 `json:"factor"` // To / From
+}
+
+// computedRow is a row that entered the totals, with its stoichiometry.
+type computedRow struct {
+	index int
+	nu    []stoich
+}
+
+// analyse adds the flux-force relation and remedies to the rows and the MDF to the result.
+func (ev *evaluation) analyse(rows []computedRow) {
+	def, byKey := ev.readBounds()
+	boundOf := func(r *reactant) bound {
+		if b, ok := byKey[r.key]; ok {
+			return b
+		}
+		return def
+	}
+	for _, cr := range rows {
+		out := &ev.res.Rows[cr.index]
+		if out.DG == nil {
+			continue
+		}
+		dg := *out.DG
+		logRatio := -dg / (ev.rt * math.Ln10)
+		out.FluxForce = &FluxForce{Ratio: positiveOrNil(math.Pow(10, logRatio)), Log10Ratio: logRatio,
+			ReverseShare: math.Min(1, math.Exp(dg/ev.rt))}
+		if out.Status == StatusUphill {
+			out.Remedy = ev.remedy(dg, cr.nu, boundOf)
+		}
+	}
+	ev.res.MDF = ev.maxMinDrivingForce(rows, boundOf)
+}
+
+// remedy finds the compound whose concentration, changed by the smallest factor within its bounds, brings
+// ΔrG' to zero: ΔrG' + RT ν_i Δln c_i = 0, so Δln c_i = −ΔrG'/(RT ν_i).
+func (ev *evaluation) remedy(dg float64, nu []stoich, boundOf func(*reactant) bound) *Remedy {
+	var best *Remedy
+	bestStep := math.Inf(1)
+	for _, s := range nu {
+		if s.coef == 0 || s.r.isWater() || s.r.isProton() {
+			continue
+		}
+		c, _ := ev.concentrationOf(s.r)
+		step := -dg / (ev.rt * s.coef)
+		to := c.molar * math.Exp(step)
+		b := boundOf(s.r)
+		if to < b.low*(1-1e-12) || to > b.high*(1+1e-12) || math.Abs(step) >= bestStep {
+			continue
+		}
+		bestStep = math.Abs(step)
+		best = &Remedy{Compound: s.term.Name + tagOf(s.term.Compartment), From: c.molar, To: to, Factor: to / c.molar}
+	}
+	return best
+}
+
+// maxMinDrivingForce builds and solves the MDF linear program over the computed rows; water and H+ are
+// fixed and stay out of it.
+func (ev *evaluation) maxMinDrivingForce(rows []computedRow, boundOf func(*reactant) bound) *MDF {
+	out := &MDF{Bottlenecks: []string{}, Concentrations: []OptimalConc{}, Rows: []MDFRow{}, Binding: []BindingBound{},
+		LeftOut: []string{}}
+	for i, r := range ev.res.Rows {
+		if r.DG0 == nil {
+			out.LeftOut = append(out.LeftOut, ev.ws.Rows[i].ID)
+		}
+	}
+	if len(out.LeftOut) > 0 {
+		ev.warn(Warning{Code: "mdf-left-out", Path: "rows", Message: fmt.Sprintf(
+			"the max-min driving force leaves out the row(s) without ΔrG'°: %s", strings.Join(out.LeftOut, ", "))})
+	}
+	if len(rows) == 0 {
+		return nil
+	}
+	p := &mdf.Problem{RT: ev.rt}
+	index := map[string]int{}
+	var compounds []*stoich
+	var used []computedRow
+	for _, cr := range rows {
+		row := ev.res.Rows[cr.index]
+		reaction := mdf.Reaction{DG0: *row.DG0}
+		for k := range cr.nu {
+			s := &cr.nu[k]
+			if s.r.isWater() || s.r.isProton() || s.coef == 0 {
+				continue
+			}
+			i, ok := index[s.key]
+			if !ok {
+				i = len(compounds)
+				index[s.key] = i
+				compounds = append(compounds, s)
+				lo, hi := boundOf(s.r).ln()
+				p.Lower, p.Upper = append(p.Lower, lo), append(p.Upper, hi)
+			}
+			reaction.Compound = append(reaction.Compound, i)
+			reaction.Coef = append(reaction.Coef, s.coef)
+		}
+		p.Reactions = append(p.Reactions, reaction)
+		used = append(used, cr)
+	}
+	sol, err := mdf.Solve(p)
+	if err != nil {
+		msg := "the max-min driving force could not be computed: " + err.Error()
+		if errors.Is(err, mdf.ErrNumerical) {
+			msg += " (please report the worksheet)"
+		}
+		ev.warn(Warning{Code: "mdf-failed", Message: msg})
+		return nil
+	}
+	out.DrivingForce = sol.MDF
+	for j, cr := range used {
+		id := ev.res.Rows[cr.index].ID
+		out.Rows = append(out.Rows, MDFRow{ID: id, DrivingForce: sol.DrivingForce[j], Shadow: sol.Shadow[j],
+			Bottleneck: sol.Bottleneck[j]})
+		if sol.Bottleneck[j] {
+			out.Bottlenecks = append(out.Bottlenecks, id)
+		}
+	}
+	for i, s := range compounds {
+		name := s.term.Name + tagOf(s.term.Compartment)
+		c, _ := ev.concentrationOf(s.r)
+		b := boundOf(s.r)
+		out.Concentrations = append(out.Concentrations, OptimalConc{Compound: name, Concentration: math.Exp(sol.LnConc[i]),
+			Entered: c.molar, Low: b.low, High: b.high})
+		switch {
+		case sol.LowerBinding[i]:
+			out.Binding = append(out.Binding, BindingBound{Compound: name, Side: "low", Bound: b.low})
+		case sol.UpperBinding[i]:
+			out.Binding = append(out.Binding, BindingBound{Compound: name, Side: "high", Bound: b.high})
+		}
+	}
+	out.Message = mdfMessage(out)
+	return out
+}
+
+func mdfMessage(m *MDF) string {
+	var bounds []string
+	for _, b := range m.Binding {
+		bounds = append(bounds, fmt.Sprintf("%s at its %s bound %s", b.Compound, b.Side, formatMolar(b.Bound)))
+	}
+	limits := ""
+	if len(bounds) > 0 {
+		limits = "; the bounds that limit it: " + strings.Join(bounds, ", ")
+	}
+	steps := strings.Join(m.Bottlenecks, ", ")
+	if m.DrivingForce < 0 {
+		return fmt.Sprintf("no concentrations within the bounds let every step run forward: at best the "+
+			"bottleneck step(s) %s stay uphill by %.1f kJ/mol%s", steps, -m.DrivingForce, limits)
+	}
+	return fmt.Sprintf("every step can run forward within the bounds, with at least %.1f kJ/mol of driving "+
+		"force; the bottleneck step(s): %s%s", m.DrivingForce, steps, limits)
+}
+
+// formatMolar writes a concentration with the unit that keeps the number between 1 and 1000.
+func formatMolar(c float64) string {
+	for _, u := range []struct {
+		name   string
+		factor float64
+	}{{"M", 1}, {"mM", 1e-3}, {"µM", 1e-6}, {"nM", 1e-9}} {
+		if c >= u.factor {
+			return fmt.Sprintf("%.3g %s", c/u.factor, u.name)
+		}
+	}
+	return fmt.Sprintf("%.3g pM", c/1e-12)
+}

@@ -1,0 +1,72 @@
+package engine
+
+import (
+	"fmt"
+	"math"
+)
+
+// Default concentration bounds of the max-min driving force, mol/L: 1 µM to 10 mM, the physiological range
+// usual in pathway analysis (common practice; the range Noor et al. 2014 use).
+const (
+	DefaultLowerBound = "1 uM"
+	DefaultUpperBound = "10 mM"
+)
+
+// bound is a concentration range in mol/L.
+type bound struct{ low, high float64 }
+
+// readBounds parses the worksheet's bounds into ranges by reactant key; wrong entries are field errors and
+// fall back to the default range.
+func (ev *evaluation) readBounds() (def bound, byKey map[string]bound) {
+	def = bound{1e-6, 1e-2}
+	byKey = map[string]bound{}
+	b := ev.ws.Bounds
+	if b == nil {
+		return def, byKey
+	}
+	if b.Default != nil {
+		if r, ok := ev.parseBound("bounds.default", b.Default); ok {
+			def = r
+		}
+	}
+	for _, name := range sortedKeys(b.Compounds) {
+		path := "bounds.compounds." + name
+		r, why := ev.resolveName(name)
+		if r == nil {
+			ev.fieldError(path, why)
+			continue
+		}
+		if r.isWater() || r.isProton() {
+			ev.warn(Warning{Code: "fixed-concentration", Path: path,
+				Message: "water and H+ are fixed (activity 1, and the pH); their bounds are ignored"})
+			continue
+		}
+		if rng, ok := ev.parseBound(path, b.Compounds[name]); ok {
+			byKey[r.key] = rng
+		}
+	}
+	return def, byKey
+}
+
+func (ev *evaluation) parseBound(path string, pair []string) (bound, bool) {
+	if len(pair) != 2 {
+		ev.fieldError(path, fmt.Sprintf(`a bound is a pair ["low", "high"], e.g. ["1 uM", "10 mM"]; found %d value(s)`, len(pair)))
+		return bound{}, false
+	}
+	var r bound
+	for i, dst := range []*float64{&r.low, &r.high} {
+		v, err := ParseConcentration(pair[i])
+		if err != nil {
+			ev.fieldError(fmt.Sprintf("%s[%d]", path, i), err.Error())
+			return bound{}, false
+		}
+		*dst = v
+	}
+	if r.low > r.high {
+		ev.fieldError(path, fmt.Sprintf("the low bound %s is above the high bound %s", pair[0], pair[1]))
+		return bound{}, false
+	}
+	return r, true
+}
+
+func (b bound) ln() (float64, float64) { return math.Log(b.low), math.Log(b.high) }
