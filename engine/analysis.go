@@ -45,7 +45,7 @@ type MDFRow struct {
 // BindingBound is a concentration bound that holds the MDF down: relaxing it would raise the MDF.
 type BindingBound struct {
 	Compound string  `json:"compound"`
-	Side     string  `json:"side"` // "low" or "high"
+	Side     string  `json:"side"` // "low", "high", or "fixed" for a compound held at one concentration
 	Bound    float64 `json:"bound"`
 }
 
@@ -188,6 +188,8 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow, boundOf func(*react
 		out.Concentrations = append(out.Concentrations, OptimalConc{Compound: name, Concentration: math.Exp(sol.LnConc[i]),
 			Entered: c.molar, Low: b.low, High: b.high})
 		switch {
+		case (sol.LowerBinding[i] || sol.UpperBinding[i]) && b.low == b.high:
+			out.Binding = append(out.Binding, BindingBound{Compound: name, Side: "fixed", Bound: b.low})
 		case sol.LowerBinding[i]:
 			out.Binding = append(out.Binding, BindingBound{Compound: name, Side: "low", Bound: b.low})
 		case sol.UpperBinding[i]:
@@ -201,6 +203,10 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow, boundOf func(*react
 func mdfMessage(m *MDF) string {
 	var bounds []string
 	for _, b := range m.Binding {
+		if b.Side == "fixed" {
+			bounds = append(bounds, fmt.Sprintf("%s fixed at %s", b.Compound, formatMolar(b.Bound)))
+			continue
+		}
 		bounds = append(bounds, fmt.Sprintf("%s at its %s bound %s", b.Compound, b.Side, formatMolar(b.Bound)))
 	}
 	limits := ""

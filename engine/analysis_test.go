@@ -35,8 +35,8 @@ func TestMDFLinearChain(t *testing.T) {
 	if len(m.Bottlenecks) != 2 || m.Bottlenecks[0] != "2" || m.Bottlenecks[1] != "3" {
 		t.Errorf("bottlenecks %v, want [2 3]", m.Bottlenecks)
 	}
-	if len(m.Binding) != 1 || m.Binding[0].Compound != "B" || m.Binding[0].Side != "high" {
-		t.Errorf("binding bounds %+v, want B at its high bound", m.Binding)
+	if len(m.Binding) != 2 || m.Binding[0] != (BindingBound{"B", "high", 0.01}) || m.Binding[1] != (BindingBound{"D", "fixed", 1e-4}) {
+		t.Errorf("binding bounds %+v, want B at its high bound and D fixed", m.Binding)
 	}
 	var shadows float64
 	for i, r := range m.Rows {
