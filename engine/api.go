@@ -22,7 +22,7 @@ func EvaluateJSON(worksheet []byte) (out []byte, err error) {
 	if err != nil {
 		return nil, err
 	}
-	return json.Marshal(Evaluate(ws, unknown))
+	return Evaluate(ws, unknown).AppendJSON(nil), nil
 }
 
 // LibraryEntry is what the page needs of a library compound for completion and display.

@@ -107,11 +107,14 @@ func (t valueTable) cost(nu []stoich, protons, times float64) Cost {
 	return c
 }
 
-// used lists the values in use by the names a user knows them by (library id or own id).
+// used lists the values in use for the compounds the worksheet names (in rows, concentrations or values)
+// that have a value, by the names a user knows them by (library id or own id).
 func (t valueTable) used(cat *catalog) map[string]ValueUsed {
-	out := make(map[string]ValueUsed, len(t.byKey))
+	out := map[string]ValueUsed{}
 	for k, v := range t.byKey {
-		out[strings.TrimPrefix(k, "own:")] = v
+		if _, named := cat.compounds[k]; named || t.overridden[k] {
+			out[strings.TrimPrefix(k, "own:")] = v
+		}
 	}
 	return out
 }

@@ -3,7 +3,6 @@ package engine
 import (
 	"fmt"
 	"math"
-	"math/big"
 	"slices"
 	"strings"
 	"unicode/utf8"
@@ -17,7 +16,7 @@ import (
 type stoich struct {
 	key  string // reactant key: compound and compartment
 	coef float64
-	rat  *big.Rat
+	rat  equation.Rat // exact coefficient; coef is its value
 	r    *reactant
 	term equation.Term // the term as written (the last one, where a reactant stands on both sides)
 }

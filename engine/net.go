@@ -8,27 +8,44 @@ import (
 )
 
 // netReaction sums the rows' stoichiometries, each times its multiplier, in exact rational arithmetic so
-// that intermediates cancel exactly. Compounds keep the order in which they first appear.
+// that intermediates cancel exactly. Coefficients stay in int64 (equation.Rat) while they fit and move to
+// math/big when they do not. Compounds keep the order in which they first appear.
 type netReaction struct {
 	order []string
-	coef  map[string]*big.Rat
-	term  map[string]equation.Term
+	coef  map[string]*netCoef
+}
+
+type netCoef struct {
+	small equation.Rat
+	big   *big.Rat // non-nil once the sum no longer fits in small
+	term  equation.Term
 }
 
 func (n *netReaction) add(nu []stoich, times float64) {
 	if n.coef == nil {
-		n.coef, n.term = map[string]*big.Rat{}, map[string]equation.Term{}
+		n.coef = map[string]*netCoef{}
 	}
-	t := ratOf(times)
+	t, tOK := equation.RatFromFloat(times)
 	for _, s := range nu {
 		c, ok := n.coef[s.key]
 		if !ok {
-			c = new(big.Rat)
+			c = &netCoef{term: s.term}
 			n.coef[s.key] = c
 			n.order = append(n.order, s.key)
-			n.term[s.key] = s.term
 		}
-		c.Add(c, new(big.Rat).Mul(s.rat, t))
+		if c.big == nil && tOK {
+			if p, ok := s.rat.Mul(t); ok {
+				if sum, ok := c.small.Add(p); ok {
+					c.small = sum
+					continue
+				}
+			}
+		}
+		if c.big == nil {
+			c.big = ratBig(c.small)
+		}
+		p := new(big.Rat).Mul(ratBig(s.rat), bigOf(times))
+		c.big.Add(c.big, p)
 	}
 }
 
@@ -37,15 +54,19 @@ func (n *netReaction) String() string {
 	var eq equation.Equation
 	for _, key := range n.order {
 		c := n.coef[key]
-		if c.Sign() == 0 {
+		r := c.small
+		if c.big != nil {
+			r = ratTerm(c.big)
+		}
+		if r.IsZero() {
 			continue
 		}
-		t := n.term[key]
-		abs := new(big.Rat).Abs(c)
-		t.Coef = ratTerm(abs)
-		if c.Sign() < 0 {
+		t := c.term
+		if r.Sign() < 0 {
+			t.Coef = r.Neg()
 			eq.Left = append(eq.Left, t)
 		} else {
+			t.Coef = r
 			eq.Right = append(eq.Right, t)
 		}
 	}
@@ -55,8 +76,16 @@ func (n *netReaction) String() string {
 	return eq.String()
 }
 
-// ratOf converts a multiplier to the rational its shortest decimal text denotes (2.5 → 5/2, 0.1 → 1/10).
-func ratOf(x float64) *big.Rat {
+func ratBig(r equation.Rat) *big.Rat {
+	den := r.Den
+	if den == 0 {
+		den = 1
+	}
+	return new(big.Rat).SetFrac64(r.Num, den)
+}
+
+// bigOf converts a multiplier to the rational its shortest decimal text denotes (2.5 → 5/2, 0.1 → 1/10).
+func bigOf(x float64) *big.Rat {
 	r, ok := new(big.Rat).SetString(strconv.FormatFloat(x, 'g', -1, 64))
 	if !ok {
 		r = new(big.Rat).SetFloat64(x)
@@ -67,7 +96,9 @@ func ratOf(x float64) *big.Rat {
 // ratTerm converts to the parser's coefficient type; a value too large for it is rounded to a decimal.
 func ratTerm(r *big.Rat) equation.Rat {
 	if r.Num().IsInt64() && r.Denom().IsInt64() {
-		return equation.Rat{Num: r.Num().Int64(), Den: r.Denom().Int64()}
+		if q, ok := equation.NewRat(r.Num().Int64(), r.Denom().Int64()); ok {
+			return q
+		}
 	}
 	f, _ := r.Float64()
 	q, _ := equation.RatFromFloat(f)

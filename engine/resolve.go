@@ -5,6 +5,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"sync"
 
 	"gibbsheet/engine/compounds"
 	"gibbsheet/engine/thermo"
@@ -25,7 +26,7 @@ type compound struct {
 	name    string // full name
 	lib     *compounds.Compound
 	own     *Compound
-	formula compounds.Formula // nil when unknown
+	formula []elementCount // elements other than H, sorted; nil when the formula is unknown
 	species []thermo.Species
 	noData  string // why there are no data, when the compound has neither species nor an entered ΔfG'°
 	approx  string // non-empty: the data are approximate, and how
@@ -120,7 +121,7 @@ func (cat *catalog) resolve(name string) *compound {
 	var c *compound
 	if own, ok := cat.own[normalName(name)]; ok {
 		c = cat.compound("own:"+own.ID, func() *compound { return ownCompound(own) })
-	} else if libc := cat.lib.Lookup(name); libc != nil {
+	} else if libc := lookupLibrary(cat.lib, name); libc != nil {
 		c = cat.compound(libc.ID, func() *compound { return libCompound(libc) })
 	}
 	cat.names[name] = c
@@ -144,10 +145,52 @@ func (cat *catalog) compound(key string, build func() *compound) *compound {
 	return c
 }
 
+// libCompounds keeps the evaluation's view of each library compound: it depends on the compound alone, and
+// library compounds never change, so every evaluation shares it.
+var libCompounds sync.Map // *compounds.Compound → *compound
+
 func libCompound(c *compounds.Compound) *compound {
+	if v, ok := libCompounds.Load(c); ok {
+		return v.(*compound)
+	}
+	v, _ := libCompounds.LoadOrStore(c, newLibCompound(c))
+	return v.(*compound)
+}
+
+// libraryNames remembers name lookups in the built-in library across evaluations (names are normalised
+// on each lookup, which shows in profiles of the page's recompute on every keystroke).
+var libraryNames = struct {
+	sync.Mutex
+	m map[string]*compounds.Compound
+}{m: map[string]*compounds.Compound{}}
+
+// libraryNamesSize bounds the remembered names; when reached, the memory starts afresh.
+const libraryNamesSize = 4096
+
+func lookupLibrary(lib *compounds.Library, name string) *compounds.Compound {
+	if lib != compounds.Builtin() {
+		return lib.Lookup(name)
+	}
+	libraryNames.Lock()
+	c, ok := libraryNames.m[name]
+	libraryNames.Unlock()
+	if ok {
+		return c
+	}
+	c = lib.Lookup(name)
+	libraryNames.Lock()
+	if len(libraryNames.m) >= libraryNamesSize {
+		clear(libraryNames.m)
+	}
+	libraryNames.m[name] = c
+	libraryNames.Unlock()
+	return c
+}
+
+func newLibCompound(c *compounds.Compound) *compound {
 	out := &compound{key: c.ID, name: c.Name, lib: c, approx: c.Approximation, species: c.Species}
 	if f, err := compounds.ParseFormula(c.Formula); err == nil {
-		out.formula = f
+		out.formula = heavyElements(f)
 	}
 	if len(c.Species) == 0 && c.ID != protonID {
 		out.noData = fmt.Sprintf("no species data for %s", c.Name)
@@ -162,7 +205,7 @@ func ownCompound(c *Compound) *compound {
 		out.name = c.ID
 	}
 	if f, err := compounds.ParseFormula(c.Formula); c.Formula != "" && err == nil {
-		out.formula = f
+		out.formula = heavyElements(f)
 	}
 	switch {
 	case checkOwnCompound(c) != "":

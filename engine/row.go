@@ -3,7 +3,7 @@ package engine
 import (
 	"fmt"
 	"math"
-	"math/big"
+	"slices"
 
 	"gibbsheet/engine/equation"
 )
@@ -33,11 +33,12 @@ func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 	if !ev.condOK {
 		errs = append(errs, RowError{Message: "the conditions are not usable: correct them first"})
 	}
-	eq, err := equation.Parse(in.Equation)
-	if err != nil {
-		return finishRow(out, append(errs, rowErrors(in.Equation, err)...)), nil
+	parse := parseEquation(in.Equation)
+	if parse.err != nil {
+		return finishRow(out, append(errs, rowErrors(in.Equation, parse.err)...)), nil
 	}
-	out.Equation = eq.String()
+	eq := parse.eq
+	out.Equation = parse.normal
 	nu, termErrs := ev.resolveTerms(in, eq, &out)
 	if errs = append(errs, termErrs...); len(errs) > 0 {
 		return finishRow(out, errs), nil
@@ -83,19 +84,22 @@ func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 
 // finite reports whether every number of the row can be written in JSON (no overflow to ±Inf or NaN).
 func (r *RowResult) finite() bool {
-	nums := []*float64{r.DG0, r.DG, r.K, r.Q, r.Log10K, r.Log10Q}
-	if r.Cost != nil {
-		nums = append(nums, &r.Cost.Phosphate, &r.Cost.Reducing, &r.Cost.Protons, &r.Cost.ProtonATP, &r.Cost.Total)
-	}
-	if r.Transport != nil {
-		nums = append(nums, &r.Transport.Work)
-		for i := range r.Transport.Moves {
-			nums = append(nums, &r.Transport.Moves[i].Amount, &r.Transport.Moves[i].Work)
-		}
-	}
-	for _, x := range nums {
+	for _, x := range [...]*float64{r.DG0, r.DG, r.K, r.Q, r.Log10K, r.Log10Q} {
 		if x != nil && !finite(*x) {
 			return false
+		}
+	}
+	if r.Cost != nil && !r.Cost.finite() {
+		return false
+	}
+	if t := r.Transport; t != nil {
+		if !finite(t.Work) {
+			return false
+		}
+		for _, m := range t.Moves {
+			if !finite(m.Amount) || !finite(m.Work) {
+				return false
+			}
 		}
 	}
 	return finite(r.Times)
@@ -142,10 +146,10 @@ func (ev *evaluation) status(dg float64) string {
 // errors at their columns. H+ stays only where it crosses a membrane (it appears in two compartments);
 // elsewhere the pH fixes it and it is dropped with a note.
 func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResult) ([]stoich, []RowError) {
-	var nu []stoich
+	nu := make([]stoich, 0, len(eq.Left)+len(eq.Right))
 	var errs []RowError
-	index := map[string]int{}
-	protonComps := map[string]bool{}
+	var protonComp *compartment // the compartment of the H+ terms so far
+	protonComps := 0            // how many compartments H+ is written in
 	add := func(t equation.Term, sign int64) {
 		comp := ev.compartmentOf(t.Compartment)
 		if comp == nil {
@@ -164,18 +168,24 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 			return
 		}
 		r := ev.cat.reactant(c, comp)
-		if c.isProton() {
-			protonComps[comp.id] = true
+		if c.isProton() && comp != protonComp {
+			protonComp = comp
+			protonComps++
 		}
-		coef := new(big.Rat).SetFrac64(sign*t.Coef.Num, t.Coef.Den)
-		if i, ok := index[r.key]; ok {
-			nu[i].rat.Add(nu[i].rat, coef)
-			nu[i].coef, _ = nu[i].rat.Float64()
+		coef := t.Coef
+		if sign < 0 {
+			coef = coef.Neg()
+		}
+		if i := slices.IndexFunc(nu, func(s stoich) bool { return s.r == r }); i >= 0 {
+			sum, ok := nu[i].rat.Add(coef)
+			if !ok {
+				errs = append(errs, spanError(in.Equation, t.Pos, t.NameEnd, "the coefficients of this compound are too large to add", nil))
+				return
+			}
+			nu[i].rat, nu[i].coef = sum, sum.Float()
 			return
 		}
-		f, _ := coef.Float64()
-		index[r.key] = len(nu)
-		nu = append(nu, stoich{key: r.key, coef: f, rat: coef, r: r, term: t})
+		nu = append(nu, stoich{key: r.key, coef: coef.Float(), rat: coef, r: r, term: t})
 	}
 	for _, t := range eq.Left {
 		add(t, -1)
@@ -183,7 +193,7 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 	for _, t := range eq.Right {
 		add(t, 1)
 	}
-	if len(protonComps) == 1 {
+	if protonComps == 1 {
 		kept := nu[:0]
 		for _, s := range nu {
 			if !s.r.isProton() {
@@ -210,12 +220,12 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*flo
 	if out.Transport != nil {
 		sum = out.Transport.Work
 	}
-	warned := map[string]bool{}
-	for _, s := range nu {
+	for k, s := range nu {
 		r := s.r
+		// A compound written in two compartments gets each note once.
+		seen := slices.ContainsFunc(nu[:k], func(p stoich) bool { return p.r.compound == r.compound })
 		once := func(code, msg string) {
-			if !warned[code+r.compound.key] {
-				warned[code+r.compound.key] = true
+			if !seen {
 				out.Warnings = append(out.Warnings, Warning{Code: code, Message: msg})
 			}
 		}

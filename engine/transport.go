@@ -2,6 +2,7 @@ package engine
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"gibbsheet/engine/thermo"
@@ -14,12 +15,8 @@ import (
 // whose compounds sit in several compartments without such pairs gets a warning, since where its unpaired
 // compounds cross is not written.
 func (ev *evaluation) transport(nu []stoich, out *RowResult) []Move {
-	comps := map[string]bool{}
-	for _, s := range nu {
-		comps[s.r.comp.id] = true
-	}
-	if len(comps) < 2 {
-		return nil
+	if !slices.ContainsFunc(nu, func(s stoich) bool { return s.r.comp != nu[0].r.comp }) {
+		return nil // one compartment: nothing crosses
 	}
 	// Group the reactants of each compound, in order of appearance.
 	var order []string

@@ -91,30 +91,40 @@ var ErrFormat = errors.New("not a Gibbsheet worksheet")
 // JSON, a field of the wrong type, or a missing or unsupported format. Unknown fields are ignored and listed
 // in the returned slice (as JSON paths) so the caller can warn about them.
 func Decode(data []byte) (*Worksheet, []string, error) {
-	var probe struct {
-		Format *string `json:"format"`
-	}
-	if err := json.Unmarshal(data, &probe); err != nil {
-		return nil, nil, describeJSONError(data, err)
-	}
-	if err := checkFormat(probe.Format); err != nil {
-		return nil, nil, err
-	}
 	ws := new(Worksheet)
 	dec := json.NewDecoder(bytes.NewReader(data))
 	dec.DisallowUnknownFields()
-	var unknown []string
-	if err := dec.Decode(ws); err != nil {
-		if !strings.HasPrefix(err.Error(), "json: unknown field ") {
-			return nil, nil, describeJSONError(data, err)
+	err := dec.Decode(ws)
+	if err == nil {
+		if err := checkFormat(&ws.Format, data); err != nil {
+			return nil, nil, err
 		}
-		ws = new(Worksheet)
-		if err := json.Unmarshal(data, ws); err != nil {
-			return nil, nil, describeJSONError(data, err)
+		if dec.More() {
+			return nil, nil, fmt.Errorf("not valid JSON: there is more text after the worksheet")
 		}
-		unknown = unknownFields(data)
+		return ws, nil, nil
 	}
-	return ws, unknown, nil
+	// A wrong or missing format explains the other errors best, so it is reported first.
+	var probe struct {
+		Format *string `json:"format"`
+	}
+	if perr := json.Unmarshal(data, &probe); perr != nil {
+		return nil, nil, describeJSONError(data, perr)
+	}
+	if probe.Format == nil {
+		return nil, nil, checkFormat(nil, data)
+	}
+	if ferr := checkFormat(probe.Format, data); ferr != nil {
+		return nil, nil, ferr
+	}
+	if !strings.HasPrefix(err.Error(), "json: unknown field ") {
+		return nil, nil, describeJSONError(data, err)
+	}
+	ws = new(Worksheet)
+	if err := json.Unmarshal(data, ws); err != nil {
+		return nil, nil, describeJSONError(data, err)
+	}
+	return ws, unknownFields(data), nil
 }
 
 // Encode writes the worksheet document, indented for people who read or diff it.
@@ -122,7 +132,11 @@ func (ws *Worksheet) Encode() ([]byte, error) {
 	return json.MarshalIndent(ws, "", "  ")
 }
 
-func checkFormat(f *string) error {
+// checkFormat checks the "format" field; data tells a missing field from an empty one.
+func checkFormat(f *string, data []byte) error {
+	if f != nil && *f == "" && !bytes.Contains(data, []byte(`"format"`)) {
+		f = nil
+	}
 	switch {
 	case f == nil:
 		return fmt.Errorf("%w: the \"format\" field is missing (expected %q)", ErrFormat, Format)

@@ -68,15 +68,41 @@ func (r Rat) big() *big.Rat {
 	return new(big.Rat).SetFrac(big.NewInt(r.Num), big.NewInt(r.Den))
 }
 
-// Add returns r+s exactly. It computes with math/big and reports false if
-// the result does not fit in int64.
+// smallLimit bounds the numerators and denominators for which Add and Mul compute in int64 directly: the
+// cross products of two such values stay below 2^63.
+const smallLimit = 1 << 30
+
+func (r Rat) small() bool {
+	return r.Num > -smallLimit && r.Num < smallLimit && r.Den > 0 && r.Den < smallLimit
+}
+
+// Add returns r+s exactly, reporting false if the result does not fit in int64. Small values (the usual
+// coefficients and multipliers) are added in int64; others with math/big.
 func (r Rat) Add(s Rat) (Rat, bool) {
+	if r.Den == 0 {
+		r.Den = 1
+	}
+	if s.Den == 0 {
+		s.Den = 1
+	}
+	if r.small() && s.small() {
+		return Rat{r.Num*s.Den + s.Num*r.Den, r.Den * s.Den}.norm(), true
+	}
 	return fromBig(new(big.Rat).Add(r.big(), s.big()))
 }
 
-// Mul returns r·s exactly. It computes with math/big and reports false if
-// the result does not fit in int64.
+// Mul returns r·s exactly, reporting false if the result does not fit in int64; like Add it stays in int64
+// for small values.
 func (r Rat) Mul(s Rat) (Rat, bool) {
+	if r.Den == 0 {
+		r.Den = 1
+	}
+	if s.Den == 0 {
+		s.Den = 1
+	}
+	if r.small() && s.small() {
+		return Rat{r.Num * s.Num, r.Den * s.Den}.norm(), true
+	}
 	return fromBig(new(big.Rat).Mul(r.big(), s.big()))
 }
 
