@@ -91,16 +91,7 @@ func TestDegenerate(t *testing.T) {
 	}}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
-			sol, err := Solve(tc.p)
-			if err != nil {
-				t.Fatal(err)
-			}
-			if err := checkSolution(tc.p, sol); err != nil {
-				t.Fatal(err)
-			}
-			if math.Abs(sol.MDF-tc.mdf) > checkTol {
-				t.Errorf("MDF = %.9g, want %.9g", sol.MDF, tc.mdf)
-			}
+			solveWant(t, tc.p, tc.mdf)
 		})
 	}
 }

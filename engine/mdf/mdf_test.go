@@ -140,16 +140,7 @@ func handCases() []handCase {
 func TestHandDerived(t *testing.T) {
 	for _, tc := range handCases() {
 		t.Run(tc.name, func(t *testing.T) {
-			sol, err := Solve(tc.p)
-			if err != nil {
-				t.Fatal(err)
-			}
-			if err := checkSolution(tc.p, sol); err != nil {
-				t.Fatal(err)
-			}
-			if math.Abs(sol.MDF-tc.mdf) > checkTol {
-				t.Errorf("MDF = %.9g, want %.9g", sol.MDF, tc.mdf)
-			}
+			sol := solveWant(t, tc.p, tc.mdf)
 			for j, want := range tc.shadow {
 				if math.Abs(sol.Shadow[j]-want) > checkTol {
 					t.Errorf("Shadow[%d] = %g, want %g", j, sol.Shadow[j], want)
@@ -181,4 +172,21 @@ func checkMarks(t *testing.T, what string, got []bool, want []int) {
 			t.Errorf("%s[%d] = %v, want %v", what, i, got[i], w[i])
 		}
 	}
+}
+
+// solveWant solves p, checks the optimality certificate and that the MDF
+// equals want within checkTol, and returns the solution.
+func solveWant(t *testing.T, p *Problem, want float64) *Solution {
+	t.Helper()
+	sol, err := Solve(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := checkSolution(p, sol); err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(sol.MDF-want) > checkTol {
+		t.Errorf("MDF = %.9g, want %.9g", sol.MDF, want)
+	}
+	return sol
 }

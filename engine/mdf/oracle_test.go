@@ -1,6 +1,7 @@
 package mdf
 
 import (
+	"fmt"
 	"math"
 	"runtime"
 	"testing"
@@ -19,24 +20,7 @@ func TestOracleRandom(t *testing.T) {
 		}
 		for s := range reps {
 			seed := uint64(1000*m + s)
-			p := randomNetwork(seed, m)
-			got, err := Solve(p)
-			if err != nil {
-				t.Fatalf("m=%d seed=%d: Solve: %v", m, seed, err)
-			}
-			if err := checkSolution(p, got); err != nil {
-				t.Errorf("m=%d seed=%d: %v", m, seed, err)
-			}
-			if m > gonumMax() {
-				continue // gonum's dense simplex takes seconds here; the certificate still holds
-			}
-			want, err := SolveGonum(p)
-			if err != nil {
-				t.Fatalf("m=%d seed=%d: SolveGonum: %v", m, seed, err)
-			}
-			if math.Abs(got.MDF-want.MDF) > checkTol {
-				t.Errorf("m=%d seed=%d: MDF = %.9g, gonum %.9g", m, seed, got.MDF, want.MDF)
-			}
+			compareGonum(t, randomNetwork(seed, m), m <= gonumMax(), fmt.Sprintf("m=%d seed=%d", m, seed))
 		}
 	}
 }
@@ -58,24 +42,30 @@ func TestOracleChain(t *testing.T) {
 	for _, m := range []int{3, 5, 8, 12, 20, 30, 45, 60, 200} {
 		for s := range 2 {
 			seed := uint64(77*m + s)
-			p := chainNetwork(seed, m)
-			got, err := Solve(p)
-			if err != nil {
-				t.Fatalf("m=%d seed=%d: Solve: %v", m, seed, err)
-			}
-			if err := checkSolution(p, got); err != nil {
-				t.Errorf("m=%d seed=%d: %v", m, seed, err)
-			}
-			if m > min(60, gonumMax()) {
-				continue
-			}
-			want, err := SolveGonum(p)
-			if err != nil {
-				t.Fatalf("m=%d seed=%d: SolveGonum: %v", m, seed, err)
-			}
-			if math.Abs(got.MDF-want.MDF) > checkTol {
-				t.Errorf("m=%d seed=%d: MDF = %.9g, gonum %.9g", m, seed, got.MDF, want.MDF)
-			}
+			compareGonum(t, chainNetwork(seed, m), m <= min(60, gonumMax()), fmt.Sprintf("m=%d seed=%d", m, seed))
 		}
+	}
+}
+
+// compareGonum solves p, checks the optimality certificate and, if
+// withGonum, that the MDF agrees with gonum's lp.Simplex within checkTol.
+func compareGonum(t *testing.T, p *Problem, withGonum bool, what string) {
+	t.Helper()
+	got, err := Solve(p)
+	if err != nil {
+		t.Fatalf("%s: Solve: %v", what, err)
+	}
+	if err := checkSolution(p, got); err != nil {
+		t.Errorf("%s: %v", what, err)
+	}
+	if !withGonum {
+		return // gonum's dense simplex takes seconds here; the certificate still holds
+	}
+	want, err := SolveGonum(p)
+	if err != nil {
+		t.Fatalf("%s: SolveGonum: %v", what, err)
+	}
+	if math.Abs(got.MDF-want.MDF) > checkTol {
+		t.Errorf("%s: MDF = %.9g, gonum %.9g", what, got.MDF, want.MDF)
 	}
 }

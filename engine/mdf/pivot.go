@@ -14,23 +14,29 @@ func (sx *simplex) pivot(q, dir int) error {
 	if q > n {
 		slackRow = q - n - 1
 	}
-	// alpha = K⁻¹ a_q[T]; w = a_q − A[:, P] alpha on rows outside T.
-	alpha := sx.alpha
+	// alpha = K⁻¹ a_q[T] = Σ_r E[:, r] a_q[T_r] over the few nonzeros of
+	// a_q; w = a_q − A[:, P] alpha on rows outside T.
+	k, ks := len(sx.P), sx.ks
+	alpha := sx.alpha[:k]
 	clear(alpha)
 	clear(sx.w)
+	addCol := func(r int, v float64) {
+		for c := range alpha {
+			alpha[c] += sx.kinv[c*ks+r] * v
+		}
+	}
 	if slackRow >= 0 {
-		alpha[sx.tPos[slackRow]] = 1
+		addCol(sx.tPos[slackRow], 1)
 	} else {
 		for e := lp.colStart[q]; e < lp.colStart[q+1]; e++ {
 			j := lp.colRow[e]
 			if r := sx.tPos[j]; r >= 0 {
-				alpha[r] = lp.colVal[e]
+				addCol(r, lp.colVal[e])
 			} else {
 				sx.w[j] = lp.colVal[e]
 			}
 		}
 	}
-	sx.lu.solve(alpha, sx.tmp)
 	for c, p := range sx.P {
 		a := alpha[c]
 		if a == 0 {
@@ -118,20 +124,25 @@ func (sx *simplex) pivot(q, dir int) error {
 		}
 		sx.pPos[leave] = -1
 		if slackRow < 0 {
+			sx.replaceCol(c, alpha)
 			sx.P[c], sx.pPos[q], sx.st[q] = q, c, basic
 		} else {
+			r := sx.tPos[slackRow]
+			sx.shrink(c, r)
 			sx.removeP(c)
-			sx.removeT(sx.tPos[slackRow])
+			sx.removeT(r)
 		}
 	default: // the slack of a loose row reaches zero: the row becomes tight
 		j := leave - n - 1
 		if slackRow < 0 {
+			sx.grow(j, alpha, sx.w[j])
 			sx.pPos[q], sx.st[q] = len(sx.P), basic
 			sx.P = append(sx.P, q)
 			sx.tPos[j] = len(sx.T)
 			sx.T = append(sx.T, j)
 		} else {
 			r := sx.tPos[slackRow]
+			sx.replaceRow(r, j)
 			sx.tPos[slackRow], sx.tPos[j], sx.T[r] = -1, r, j
 		}
 	}

@@ -1,6 +1,7 @@
 package mdf
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -11,23 +12,47 @@ import (
 func TestBlandOnly(t *testing.T) {
 	for seed := range uint64(60) {
 		p := randomNetwork(seed+5e5, 5+int(seed%60))
-		want, err := Solve(p)
-		if err != nil {
-			t.Fatal(err)
-		}
-		sx := newSimplex(newSparseLP(p))
-		sx.bland = true
-		if err := sx.run(); err != nil {
-			t.Fatalf("seed %d: %v", seed, err)
-		}
-		got := sx.solution(p)
-		if err := checkSolution(p, got); err != nil {
-			t.Errorf("seed %d: %v", seed, err)
-		}
-		if math.Abs(got.MDF-want.MDF) > checkTol {
-			t.Errorf("seed %d: Bland MDF %g, default %g", seed, got.MDF, want.MDF)
+		compareStart(t, p, nil, true, fmt.Sprintf("seed %d bland", seed))
+	}
+}
+
+// compareStart solves p from the default start, or from a random vertex if
+// rng is not nil, optionally in Bland mode throughout, and checks the
+// certificate and that the MDF matches Solve.
+func compareStart(t *testing.T, p *Problem, rng *rand.Rand, bland bool, what string) {
+	t.Helper()
+	want, err := Solve(p)
+	if err != nil {
+		t.Fatalf("%s: %v", what, err)
+	}
+	sx := newSimplex(newSparseLP(p))
+	if rng != nil {
+		randomStart(sx, rng)
+	}
+	sx.bland = bland
+	if err := sx.run(); err != nil {
+		t.Fatalf("%s: %v", what, err)
+	}
+	got := sx.solution(p)
+	if err := checkSolution(p, got); err != nil {
+		t.Errorf("%s: %v", what, err)
+	}
+	if math.Abs(got.MDF-want.MDF) > checkTol {
+		t.Errorf("%s: MDF %g, Solve %g", what, got.MDF, want.MDF)
+	}
+}
+
+// randomStart puts every compound at a random bound and rebuilds the
+// initial basis.
+func randomStart(sx *simplex, rng *rand.Rand) {
+	for i := range sx.x {
+		if rng.IntN(2) == 0 {
+			sx.x[i], sx.st[i] = sx.lp.lo[i], atLower
+		} else {
+			sx.x[i], sx.st[i] = sx.lp.up[i], atUpper
 		}
 	}
+	sx.startBasis()
 }
 
 // TestMonotone checks properties that follow from the LP (common practice,
@@ -89,31 +114,8 @@ func TestRandomStart(t *testing.T) {
 	rng := rand.New(rand.NewPCG(7, 7))
 	for seed := range uint64(200) {
 		p := randomNetwork(seed+3e6, 3+int(seed%50))
-		want, err := Solve(p)
-		if err != nil {
-			t.Fatal(err)
-		}
 		for _, bland := range []bool{false, true} {
-			sx := newSimplex(newSparseLP(p))
-			for i := range sx.x {
-				if rng.IntN(2) == 0 {
-					sx.x[i], sx.st[i] = p.Lower[i], atLower
-				} else {
-					sx.x[i], sx.st[i] = p.Upper[i], atUpper
-				}
-			}
-			sx.startBasis()
-			sx.bland = bland
-			if err := sx.run(); err != nil {
-				t.Fatalf("seed %d bland=%v: %v", seed, bland, err)
-			}
-			got := sx.solution(p)
-			if err := checkSolution(p, got); err != nil {
-				t.Errorf("seed %d bland=%v: %v", seed, bland, err)
-			}
-			if math.Abs(got.MDF-want.MDF) > checkTol {
-				t.Errorf("seed %d bland=%v: MDF %g, default start %g", seed, bland, got.MDF, want.MDF)
-			}
+			compareStart(t, p, rng, bland, fmt.Sprintf("seed %d bland=%v", seed, bland))
 		}
 	}
 }

@@ -48,19 +48,27 @@ const (
 // n+1+j. A basis consists of the basic slacks of the rows not in T plus the
 // structural basic variables P (always including B, which is free and so
 // never leaves). With rows permuted, the basis matrix is [K 0; A_NP I], with
-// the kernel K = A[T, P] square, so only the |T|×|T| kernel is factorised;
-// |T| is the number of tight reactions, small in practice.
+// the kernel K = A[T, P] square, so only the |T|×|T| kernel is inverted
+// (inverse.go); |T| is the number of tight reactions, a handful in typical
+// pathways and up to about m/2 in long chains sharing one MDF. A pivot
+// costs O(|T|² + nonzeros + m + n).
 type simplex struct {
-	lp    *sparseLP
-	x     []float64 // compound values (nonbasic: exactly at a bound)
-	bval  float64   // value of B
-	s     []float64 // slack of each row
-	st    []varStatus
-	P, T  []int // structural basics (n = B) and tight rows, paired by position
-	pPos  []int // position of structural variable in P, or -1 (length n+1)
-	tPos  []int // position of row in T, or -1
-	lu    denseLU
-	kbuf  []float64
+	lp   *sparseLP
+	x    []float64 // compound values (nonbasic: exactly at a bound)
+	bval float64   // value of B
+	s    []float64 // slack of each row
+	st   []varStatus
+	P, T []int // structural basics (n = B) and tight rows, paired by position
+	pPos []int // position of structural variable in P, or -1 (length n+1)
+	tPos []int // position of row in T, or -1
+	lu   denseLU
+	kbuf []float64
+	kinv []float64 // E = K⁻¹, row-major with stride ks (see inverse.go)
+	ks   int
+	// updates counts inverse updates since the last refactorisation.
+	updates int
+	// fresh makes primal and dual use the LU factors instead of kinv.
+	fresh bool
 	y     []float64 // reaction duals by position in T
 	d     []float64 // reduced costs of compounds
 	alpha []float64 // K⁻¹ times the entering column, by position in P
@@ -139,12 +147,25 @@ func (sx *simplex) run() error {
 // step refactors the kernel, recomputes primal and dual values, and makes
 // one pivot; it reports done at optimality.
 func (sx *simplex) step() (done bool, err error) {
-	if !sx.factor() {
+	if sx.stale() && !sx.refactor() {
 		return false, fmt.Errorf("%w: singular basis kernel at pivot %d", ErrNumerical, sx.iters)
 	}
 	sx.primal()
 	sx.dual()
 	q, dir := sx.price()
+	if q < 0 && sx.updates > 0 {
+		// Accept optimality only on a fresh LU factorisation of the kernel.
+		if !sx.factor() {
+			return false, fmt.Errorf("%w: singular basis kernel at pivot %d", ErrNumerical, sx.iters)
+		}
+		sx.fresh = true
+		sx.primal()
+		sx.dual()
+		sx.fresh = false
+		if q, dir = sx.price(); q >= 0 {
+			sx.updates = refactorMin + 2*len(sx.P) // the updated inverse drifted
+		}
+	}
 	if q < 0 {
 		return true, nil
 	}
@@ -172,12 +193,6 @@ func (sx *simplex) factor() bool {
 			}
 		}
 	}
-	if cap(sx.tmp) < k {
-		sx.tmp = make([]float64, k, 2*k)
-		sx.y = make([]float64, k, 2*k)
-		sx.alpha = make([]float64, k, 2*k)
-	}
-	sx.tmp, sx.y, sx.alpha = sx.tmp[:k], sx.y[:k], sx.alpha[:k]
 	return sx.lu.factor(kb, k)
 }
 
@@ -185,7 +200,7 @@ func (sx *simplex) factor() bool {
 // errors do not accumulate over pivots: K x_P = b_T − A[T, nonbasic] x_N,
 // then s = b − A x − B.
 func (sx *simplex) primal() {
-	lp, rhs := sx.lp, sx.alpha
+	lp, rhs := sx.lp, sx.alpha[:len(sx.T)]
 	for r, j := range sx.T {
 		v := lp.b[j]
 		for e := lp.rowStart[j]; e < lp.rowStart[j+1]; e++ {
@@ -195,7 +210,11 @@ func (sx *simplex) primal() {
 		}
 		rhs[r] = v
 	}
-	sx.lu.solve(rhs, sx.tmp)
+	if sx.fresh {
+		sx.lu.solve(rhs, sx.tmp)
+	} else {
+		sx.applyInv(rhs)
+	}
 	for c, p := range sx.P {
 		if p == lp.n {
 			sx.bval = rhs[c]
@@ -217,9 +236,15 @@ func (sx *simplex) primal() {
 // reduced cost −y_r.
 func (sx *simplex) dual() {
 	lp := sx.lp
-	clear(sx.y)
-	sx.y[sx.pPos[lp.n]] = 1
-	sx.lu.solveT(sx.y, sx.tmp)
+	k, b := len(sx.P), sx.pPos[lp.n]
+	sx.y = sx.y[:k]
+	if sx.fresh {
+		clear(sx.y)
+		sx.y[b] = 1
+		sx.lu.solveT(sx.y, sx.tmp)
+	} else {
+		copy(sx.y, sx.kinv[b*sx.ks:b*sx.ks+k]) // y = Eᵀ e_B
+	}
 	clear(sx.d)
 	for r, j := range sx.T {
 		yr := sx.y[r]
