@@ -72,3 +72,18 @@ func TestGibbsHelmholtzReaction(t *testing.T) {
 		}
 	}
 }
+
+// TestTemperatureWithoutEnthalpy: where a compound of the row has no ΔfH°, ΔrG'° is held at its 298.15 K
+// value at the worksheet's pH and ionic strength (common practice when ΔrH'° is unknown), and the row says
+// so; ΔrG' still uses RT at the worksheet's temperature.
+func TestTemperatureWithoutEnthalpy(t *testing.T) {
+	const eq = "glucose 6-phosphate = fructose 6-phosphate" // no ΔfH° for fructose 6-phosphate in the library
+	at298, at310 := dG0At(t, eq, 7.2, 0.18, 298.15), dG0At(t, eq, 7.2, 0.18, 310.15)
+	if at298 != at310 {
+		t.Errorf("ΔrG'° at 310.15 K is %v, want the 298.15 K value %v", at310, at298)
+	}
+	res := evaluate(t, sheet(`"conditions":{"temperature":310.15}`, eq))
+	if !hasWarning(res.Rows[0], "no-enthalpy") {
+		t.Errorf("no warning that the temperature is not applied: %+v", res.Rows[0].Warnings)
+	}
+}

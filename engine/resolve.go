@@ -31,7 +31,6 @@ type compound struct {
 	noData  string // why there are no data, when the compound has neither species nor an entered ΔfG'°
 	approx  string // non-empty: the data are approximate, and how
 
-	noEnthalpy bool // some species lacks ΔfH°, so the temperature is not followed
 }
 
 func (c *compound) isWater() bool  { return c.lib != nil && c.lib.ID == waterID }
@@ -47,6 +46,11 @@ type reactant struct {
 	noData    string
 	meanH     float64 // N̄H at the compartment's conditions
 	meanZ     float64 // z̄ at the compartment's conditions
+
+	noEnthalpy bool // a species that counts here has no ΔfH°, so Gibbs–Helmholtz cannot move it
+
+	refDone bool    // ref is computed
+	ref     float64 // ΔfG'° at 298.15 K and the compartment's pH, I and pMg
 }
 
 // normalName folds a name for case-insensitive matching of the worksheet's own compounds.
@@ -195,7 +199,6 @@ func newLibCompound(c *compounds.Compound) *compound {
 	if len(c.Species) == 0 && c.ID != protonID {
 		out.noData = fmt.Sprintf("no species data for %s", c.Name)
 	}
-	out.noEnthalpy = missingEnthalpy(c.Species)
 	return out
 }
 
@@ -214,12 +217,15 @@ func ownCompound(c *Compound) *compound {
 	case c.DfG0Prime == nil && len(c.Species) == 0:
 		out.noData = fmt.Sprintf("%q has no thermodynamic data: enter the row's ΔrG'°, or give the compound species data or a ΔfG'°", c.ID)
 	}
-	out.noEnthalpy = missingEnthalpy(c.Species)
 	return out
 }
 
-func missingEnthalpy(sp []thermo.Species) bool {
-	return slices.ContainsFunc(sp, func(s thermo.Species) bool { return s.DfH0 == nil })
+// missingEnthalpy reports whether a species that counts at c has no ΔfH° (magnesium species do not count
+// when magnesium is ignored).
+func missingEnthalpy(sp []thermo.Species, c thermo.Conditions) bool {
+	return slices.ContainsFunc(sp, func(s thermo.Species) bool {
+		return s.DfH0 == nil && (s.NMg == 0 || !math.IsInf(c.PMg, 1))
+	})
 }
 
 // reactant returns the compound in a compartment, transformed at its conditions (Alberty's transform, see
@@ -250,9 +256,26 @@ func (cat *catalog) reactant(c *compound, comp *compartment) *reactant {
 		r.dfG0prime, r.hasData = g, true
 		r.meanH = thermo.MeanBoundH(c.species, comp.cond)
 		r.meanZ = thermo.MeanCharge(c.species, comp.cond)
+		r.noEnthalpy = missingEnthalpy(c.species, comp.cond)
 	}
 	cat.reactants[key] = r
 	return r
+}
+
+// atReference returns the reactant's ΔfG'° at 298.15 K and its compartment's pH, I and pMg (see
+// heatUnknown); reactants without species (H+, entered ΔfG'°) keep their value.
+func (cat *catalog) atReference(r *reactant) float64 {
+	if !r.refDone {
+		r.refDone, r.ref = true, r.dfG0prime
+		if len(r.species) > 0 && !(r.own != nil && r.own.DfG0Prime != nil) {
+			c := r.comp.cond
+			c.Temperature = thermo.TRef
+			if g, err := thermo.ReactantDfG0Prime(r.species, c); err == nil {
+				r.ref = g
+			}
+		}
+	}
+	return r.ref
 }
 
 // suggestions lists the names nearest to an unknown one: the worksheet's own compounds that share its start,

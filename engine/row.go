@@ -4,6 +4,9 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strings"
+
+	"gibbsheet/engine/thermo"
 
 	"gibbsheet/engine/equation"
 )
@@ -220,6 +223,7 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*flo
 	if out.Transport != nil {
 		sum = out.Transport.Work
 	}
+	atReference := ev.heatUnknown(in, nu, out)
 	for k, s := range nu {
 		r := s.r
 		// A compound written in two compartments gets each note once.
@@ -232,9 +236,6 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*flo
 		if r.approx != "" {
 			once("approximate-data", fmt.Sprintf("the data for %s are approximate: %s", r.name, r.approx))
 		}
-		if r.noEnthalpy && math.Abs(ev.cond.Temperature-DefaultTemperature) > 1 && in.DG0 == nil {
-			once("no-enthalpy", fmt.Sprintf("no ΔfH° is known for %s: its energy is held at the 298.15 K value", r.name))
-		}
 		if r.own != nil && r.own.DfG0Prime != nil && in.DG0 == nil {
 			once("entered-formation-energy", fmt.Sprintf("ΔfG'° of %s is used as entered and does not follow "+
 				"changes of pH, I, pMg or temperature", r.name))
@@ -245,7 +246,11 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*flo
 			}
 			continue
 		}
-		sum += s.coef * r.dfG0prime
+		g := r.dfG0prime
+		if atReference {
+			g = ev.cat.atReference(r)
+		}
+		sum += s.coef * g
 	}
 	if in.DG0 != nil {
 		v := *in.DG0
@@ -261,6 +266,34 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*flo
 	}
 	return &sum, nil
 }
+
+// heatUnknown reports whether the row's ΔrG'° must be taken at 298.15 K: the temperature differs from it and
+// some compound of the row has a species without ΔfH°, so Gibbs–Helmholtz cannot move the row as a whole.
+// Moving only the compounds with ΔfH° would shift ΔrG'° by tens of kJ/mol for no physical reason (it would
+// amount to assuming ΔfH° = ΔfG° for the others); holding ΔrG'° at its 298.15 K value (at the worksheet's
+// pH, I and pMg) is the usual approximation when ΔrH'° is unknown (common practice, no source). The row
+// says so in a warning.
+func (ev *evaluation) heatUnknown(in *Row, nu []stoich, out *RowResult) bool {
+	if in.DG0 != nil || math.Abs(ev.cond.Temperature-thermo.TRef) < temperatureTolerance {
+		return false
+	}
+	var missing []string
+	for _, s := range nu {
+		if s.r.noEnthalpy && s.r.hasData && len(s.r.species) > 0 && !slices.Contains(missing, s.r.name) {
+			missing = append(missing, s.r.name)
+		}
+	}
+	if len(missing) == 0 {
+		return false
+	}
+	out.Warnings = append(out.Warnings, Warning{Code: "no-enthalpy", Message: fmt.Sprintf(
+		"no ΔfH° is known for %s, so ΔrG'° is taken at 298.15 K (at this pH, I and pMg), as if it did not "+
+			"change with temperature; ΔrG' uses the worksheet's temperature", strings.Join(missing, ", "))})
+	return true
+}
+
+// temperatureTolerance (K) is how close to 298.15 K a temperature counts as the reference temperature.
+const temperatureTolerance = 1e-6
 
 // lnQ is ln of the mass-action ratio with concentrations in mol/L; water counts at activity 1 and H+ is
 // fixed by each compartment's pH, so neither enters.
