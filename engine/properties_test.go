@@ -87,3 +87,27 @@ func TestTemperatureWithoutEnthalpy(t *testing.T) {
 		t.Errorf("no warning that the temperature is not applied: %+v", res.Rows[0].Warnings)
 	}
 }
+
+// TestHeldRowsAreContinuous: a row held at its 298.15 K ΔrG'° keeps exactly that value at other
+// temperatures, transport work included (regressions: H+ moved across a membrane was counted with its
+// species energy, and the transport work followed the temperature while the formation energies did not).
+func TestHeldRowsAreContinuous(t *testing.T) {
+	for _, eq := range []string{"phosphoenolpyruvate[m] + H+[m] = phosphoenolpyruvate + H+", "Pi = Pi[m]"} {
+		var at []float64
+		for _, T := range []float64{298.15, 298.16, 310.15} {
+			doc := sheet(fmt.Sprintf(`"conditions":{"temperature":%g,"pMg":3},"compartments":[{"id":"c","pH":7.2},`+
+				`{"id":"m","pH":7.95,"potential":-160}]`, T), eq)
+			r := evaluate(t, doc).Rows[0]
+			if r.Error != nil {
+				t.Fatalf("%s: %s", eq, r.Error.Message)
+			}
+			at = append(at, *r.DG0)
+			if T != 298.15 && !hasWarning(r, "no-enthalpy") {
+				t.Errorf("%s at %g K: no no-enthalpy warning", eq, T)
+			}
+		}
+		if !near(at[1], at[0], 1e-9) || !near(at[2], at[0], 1e-9) {
+			t.Errorf("%s: ΔrG'° at 298.15, 298.16, 310.15 K = %v, want all equal", eq, at)
+		}
+	}
+}

@@ -49,8 +49,7 @@ type reactant struct {
 
 	noEnthalpy bool // a species that counts here has no ΔfH°, so Gibbs–Helmholtz cannot move it
 
-	refDone bool    // ref is computed
-	ref     float64 // ΔfG'° at 298.15 K and the compartment's pH, I and pMg
+	ref *reactant // the same at 298.15 K, made by atReference when first needed
 }
 
 // normalName folds a name for case-insensitive matching of the worksheet's own compounds.
@@ -262,17 +261,24 @@ func (cat *catalog) reactant(c *compound, comp *compartment) *reactant {
 	return r
 }
 
-// atReference returns the reactant's ΔfG'° at 298.15 K and its compartment's pH, I and pMg (see
-// heatUnknown); reactants without species (H+, entered ΔfG'°) keep their value.
-func (cat *catalog) atReference(r *reactant) float64 {
-	if !r.refDone {
-		r.refDone, r.ref = true, r.dfG0prime
-		if len(r.species) > 0 && !(r.own != nil && r.own.DfG0Prime != nil) {
-			c := r.comp.cond
-			c.Temperature = thermo.TRef
-			if g, err := thermo.ReactantDfG0Prime(r.species, c); err == nil {
-				r.ref = g
-			}
+// atReference returns the reactant's data at 298.15 K and its compartment's pH, I and pMg (see
+// heatUnknown): ΔfG'°, N̄H and z̄. Reactants whose data do not come from species (H+, an entered ΔfG'°) keep
+// their values.
+func (cat *catalog) atReference(r *reactant) *reactant {
+	if r.ref != nil {
+		return r.ref
+	}
+	comp := *r.comp
+	comp.cond.Temperature = thermo.TRef
+	ref := *r
+	ref.comp = &comp
+	ref.ref = &ref
+	r.ref = &ref
+	if len(r.species) > 0 && !r.isProton() && !(r.own != nil && r.own.DfG0Prime != nil) && r.hasData {
+		if g, err := thermo.ReactantDfG0Prime(r.species, comp.cond); err == nil {
+			ref.dfG0prime = g
+			ref.meanH = thermo.MeanBoundH(r.species, comp.cond)
+			ref.meanZ = thermo.MeanCharge(r.species, comp.cond)
 		}
 	}
 	return r.ref

@@ -46,9 +46,10 @@ func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
 	if errs = append(errs, termErrs...); len(errs) > 0 {
 		return finishRow(out, errs), nil
 	}
-	moves := ev.transport(nu, &out)
+	atReference := ev.heatUnknown(in, nu, &out)
+	moves := ev.transport(nu, atReference, &out)
 
-	dg0, dataErrs := ev.standardEnergy(in, nu, &out)
+	dg0, dataErrs := ev.standardEnergy(in, nu, atReference, &out)
 	lnQ, concErrs := ev.lnQ(in.Equation, nu)
 	out.Cost = new(Cost)
 	*out.Cost = ev.values.cost(nu, protonsDown(moves), out.Times)
@@ -217,13 +218,14 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 
 // standardEnergy is ΔrG'° of the row: entered, or Σ ν ΔfG'° over reactants with data plus the transport
 // work already put in out.Transport. A reactant without data is an error unless a ΔrG'° was entered.
-func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*float64, []RowError) {
+//
+// When atReference is set (see heatUnknown) the formation energies are those at 298.15 K.
+func (ev *evaluation) standardEnergy(in *Row, nu []stoich, atReference bool, out *RowResult) (*float64, []RowError) {
 	var errs []RowError
 	var sum float64
 	if out.Transport != nil {
 		sum = out.Transport.Work
 	}
-	atReference := ev.heatUnknown(in, nu, out)
 	for k, s := range nu {
 		r := s.r
 		// A compound written in two compartments gets each note once.
@@ -248,7 +250,7 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, out *RowResult) (*flo
 		}
 		g := r.dfG0prime
 		if atReference {
-			g = ev.cat.atReference(r)
+			g = ev.cat.atReference(r).dfG0prime
 		}
 		sum += s.coef * g
 	}

@@ -14,7 +14,9 @@ import (
 // work of its charge, Jol et al. 2010) to ΔrG'°. H+ written in two compartments is moved the same way. A row
 // whose compounds sit in several compartments without such pairs gets a warning, since where its unpaired
 // compounds cross is not written.
-func (ev *evaluation) transport(nu []stoich, out *RowResult) []Move {
+//
+// When atReference is set (see heatUnknown) the work is that at 298.15 K, like the row's formation energies.
+func (ev *evaluation) transport(nu []stoich, atReference bool, out *RowResult) []Move {
 	if !slices.ContainsFunc(nu, func(s stoich) bool { return s.r.comp != nu[0].r.comp }) {
 		return nil // one compartment: nothing crosses
 	}
@@ -43,6 +45,9 @@ func (ev *evaluation) transport(nu []stoich, out *RowResult) []Move {
 				from, to := nu[idx[a]].r, nu[idx[b]].r
 				if left[a] >= 0 || left[b] <= 0 || from.comp == to.comp {
 					continue
+				}
+				if atReference {
+					from, to = ev.cat.atReference(from), ev.cat.atReference(to)
 				}
 				amount := min(-left[a], left[b])
 				left[a] += amount
