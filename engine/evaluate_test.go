@@ -215,3 +215,16 @@ func TestNetReaction(t *testing.T) {
 		t.Errorf("total ΔrG'° %v, want Σ times·ΔrG'° = %v", *res.Total.DG0, sum)
 	}
 }
+
+// TestNetReactionOverflow: coefficients whose exact sum leaves int64 are summed in float64 and printed
+// rounded, never wrapped around.
+func TestNetReactionOverflow(t *testing.T) {
+	res := evaluate(t, `{"format":"gibbsheet-worksheet/1","compounds":[{"id":"X"},{"id":"Y"}],"rows":[`+
+		`{"id":"a","equation":"999999999999999999 X = Y","dG0":-1,"times":30}]}`)
+	if got, want := res.Total.Equation, "29999999999999999000 X = 30 Y"; got != want && got != "30000000000000000000 X = 30 Y" {
+		t.Errorf("net reaction %q, want about %q", got, want)
+	}
+	if strings.Contains(res.Total.Equation, "-") {
+		t.Errorf("net reaction %q wrapped around", res.Total.Equation)
+	}
+}

@@ -1,24 +1,27 @@
 package engine
 
 import (
-	"math/big"
+	"math"
 	"strconv"
+	"strings"
 
 	"gibbsheet/engine/equation"
 )
 
-// netReaction sums the rows' stoichiometries, each times its multiplier, in exact rational arithmetic so
-// that intermediates cancel exactly. Coefficients stay in int64 (equation.Rat) while they fit and move to
-// math/big when they do not. Compounds keep the order in which they first appear.
+// netReaction sums the rows' stoichiometries, each times its multiplier, in exact rational arithmetic
+// (equation.Rat) so that intermediates cancel exactly. A sum that no longer fits in int64 (coefficients and
+// multipliers far beyond any real pathway) carries on in float64 and is printed rounded. Compounds keep the
+// order in which they first appear.
 type netReaction struct {
 	order []string
 	coef  map[string]*netCoef
 }
 
 type netCoef struct {
-	small equation.Rat
-	big   *big.Rat // non-nil once the sum no longer fits in small
-	term  equation.Term
+	exact   equation.Rat
+	inexact bool    // the exact sum overflowed; approx holds it
+	approx  float64 // the sum in float64, kept alongside
+	term    equation.Term
 }
 
 func (n *netReaction) add(nu []stoich, times float64) {
@@ -33,32 +36,34 @@ func (n *netReaction) add(nu []stoich, times float64) {
 			n.coef[s.key] = c
 			n.order = append(n.order, s.key)
 		}
-		if c.big == nil && tOK {
-			if p, ok := s.rat.Mul(t); ok {
-				if sum, ok := c.small.Add(p); ok {
-					c.small = sum
-					continue
-				}
-			}
+		c.approx += s.coef * times
+		if c.inexact || !tOK {
+			c.inexact = true
+			continue
 		}
-		if c.big == nil {
-			c.big = ratBig(c.small)
+		p, ok := s.rat.Mul(t)
+		if ok {
+			p, ok = c.exact.Add(p)
 		}
-		p := new(big.Rat).Mul(ratBig(s.rat), bigOf(times))
-		c.big.Add(c.big, p)
+		c.exact, c.inexact = p, !ok
 	}
 }
 
-// String prints the net reaction in the equation normal form; "" when nothing is left.
+// String prints the net reaction in the equation normal form; "" when nothing is left. A coefficient too
+// large for the normal form is written out in full digits (the text then no longer parses as an equation).
 func (n *netReaction) String() string {
 	var eq equation.Equation
+	huge := false
 	for _, key := range n.order {
 		c := n.coef[key]
-		r := c.small
-		if c.big != nil {
-			r = ratTerm(c.big)
+		r := c.exact
+		if c.inexact {
+			var ok bool
+			if r, ok = equation.RatFromFloat(c.approx); !ok && c.approx != 0 {
+				huge = true
+			}
 		}
-		if r.IsZero() {
+		if r.IsZero() && !huge {
 			continue
 		}
 		t := c.term
@@ -70,37 +75,35 @@ func (n *netReaction) String() string {
 			eq.Right = append(eq.Right, t)
 		}
 	}
+	if huge {
+		return n.plainString()
+	}
 	if len(eq.Left) == 0 && len(eq.Right) == 0 {
 		return ""
 	}
 	return eq.String()
 }
 
-func ratBig(r equation.Rat) *big.Rat {
-	den := r.Den
-	if den == 0 {
-		den = 1
-	}
-	return new(big.Rat).SetFrac64(r.Num, den)
-}
-
-// bigOf converts a multiplier to the rational its shortest decimal text denotes (2.5 → 5/2, 0.1 → 1/10).
-func bigOf(x float64) *big.Rat {
-	r, ok := new(big.Rat).SetString(strconv.FormatFloat(x, 'g', -1, 64))
-	if !ok {
-		r = new(big.Rat).SetFloat64(x)
-	}
-	return r
-}
-
-// ratTerm converts to the parser's coefficient type; a value too large for it is rounded to a decimal.
-func ratTerm(r *big.Rat) equation.Rat {
-	if r.Num().IsInt64() && r.Denom().IsInt64() {
-		if q, ok := equation.NewRat(r.Num().Int64(), r.Denom().Int64()); ok {
-			return q
+// plainString prints the net reaction from the float sums, for coefficients beyond the normal form.
+func (n *netReaction) plainString() string {
+	var left, right []string
+	for _, key := range n.order {
+		c := n.coef[key]
+		x := c.exact.Float()
+		if c.inexact {
+			x = c.approx
+		}
+		if x == 0 {
+			continue
+		}
+		t := c.term
+		t.Coef = equation.Rat{Num: 1, Den: 1}
+		text := strconv.FormatFloat(math.Abs(x), 'f', -1, 64) + " " + t.String()
+		if x < 0 {
+			left = append(left, text)
+		} else {
+			right = append(right, text)
 		}
 	}
-	f, _ := r.Float64()
-	q, _ := equation.RatFromFloat(f)
-	return q
+	return strings.Join(left, " + ") + " = " + strings.Join(right, " + ")
 }

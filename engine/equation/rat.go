@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"math/big"
 	"math/bits"
 	"strconv"
 	"strings"
@@ -32,16 +31,21 @@ func NewRat(num, den int64) (Rat, bool) {
 	if den == 0 {
 		return Rat{}, false
 	}
-	return fromBig(new(big.Rat).SetFrac(big.NewInt(num), big.NewInt(den)))
+	n, d := abs(num), abs(den)
+	g := gcd(n, d)
+	return fromParts((num < 0) != (den < 0), 0, n/g, d/g)
 }
 
-// fromBig converts x to a Rat, reporting false if it does not fit.
-func fromBig(x *big.Rat) (Rat, bool) {
-	n, d := x.Num(), x.Denom()
-	if !n.IsInt64() || !d.IsInt64() || n.Int64() == math.MinInt64 {
+// fromParts makes a Rat of sign neg and magnitude (nHi·2⁶⁴ + n)/d, already
+// reduced, reporting false if it does not fit in int64.
+func fromParts(neg bool, nHi, n, d uint64) (Rat, bool) {
+	if nHi != 0 || n > math.MaxInt64 || d > math.MaxInt64 || d == 0 {
 		return Rat{}, false
 	}
-	return Rat{n.Int64(), d.Int64()}, true
+	if neg {
+		return Rat{-int64(n), int64(d)}, true
+	}
+	return Rat{int64(n), int64(d)}, true
 }
 
 // norm returns r reduced with Den > 0; see the Rat doc for the zero Den.
@@ -63,47 +67,67 @@ func (r Rat) norm() Rat {
 	return n
 }
 
-func (r Rat) big() *big.Rat {
-	r = r.norm()
-	return new(big.Rat).SetFrac(big.NewInt(r.Num), big.NewInt(r.Den))
-}
-
-// smallLimit bounds the numerators and denominators for which Add and Mul compute in int64 directly: the
-// cross products of two such values stay below 2^63.
-const smallLimit = 1 << 30
-
-func (r Rat) small() bool {
-	return r.Num > -smallLimit && r.Num < smallLimit && r.Den > 0 && r.Den < smallLimit
-}
-
-// Add returns r+s exactly, reporting false if the result does not fit in int64. Small values (the usual
-// coefficients and multipliers) are added in int64; others with math/big.
+// Add returns r+s exactly, reporting false if the result does not fit in
+// int64. It follows Knuth (TAOCP vol. 2, §4.5.1): with d1 = gcd(b, d),
+// t = a·(d/d1) + c·(b/d1) and d2 = gcd(t, d1), the sum is (t/d2) / ((b/d1)·(d/d2)),
+// reduced; t is held in 128 bits (math/bits), so nothing overflows on the way.
 func (r Rat) Add(s Rat) (Rat, bool) {
-	if r.Den == 0 {
-		r.Den = 1
+	r, s = r.norm(), s.norm()
+	d1 := gcd(uint64(r.Den), uint64(s.Den))
+	b1, d1s := uint64(r.Den)/d1, uint64(s.Den)/d1
+	hi1, lo1 := bits.Mul64(abs(r.Num), d1s)
+	hi2, lo2 := bits.Mul64(abs(s.Num), b1)
+	neg1, neg2 := r.Num < 0, s.Num < 0
+	var hi, lo uint64
+	var neg bool
+	switch {
+	case neg1 == neg2:
+		var carry uint64
+		lo, carry = bits.Add64(lo1, lo2, 0)
+		hi, _ = bits.Add64(hi1, hi2, carry) // each product is below 2¹²⁷
+		neg = neg1
+	case hi1 > hi2 || hi1 == hi2 && lo1 >= lo2:
+		var borrow uint64
+		lo, borrow = bits.Sub64(lo1, lo2, 0)
+		hi, _ = bits.Sub64(hi1, hi2, borrow)
+		neg = neg1
+	default:
+		var borrow uint64
+		lo, borrow = bits.Sub64(lo2, lo1, 0)
+		hi, _ = bits.Sub64(hi2, hi1, borrow)
+		neg = neg2
 	}
-	if s.Den == 0 {
-		s.Den = 1
+	if hi == 0 && lo == 0 {
+		return Rat{0, 1}, true
 	}
-	if r.small() && s.small() {
-		return Rat{r.Num*s.Den + s.Num*r.Den, r.Den * s.Den}.norm(), true
+	d2 := gcd(bits.Rem64(hi, lo, d1), d1)
+	if hi >= d2 {
+		return Rat{}, false // the quotient needs more than 64 bits
 	}
-	return fromBig(new(big.Rat).Add(r.big(), s.big()))
+	q, _ := bits.Div64(hi, lo, d2)
+	dh, dl := bits.Mul64(b1, uint64(s.Den)/d2)
+	if dh != 0 {
+		return Rat{}, false
+	}
+	return fromParts(neg, 0, q, dl)
 }
 
-// Mul returns r·s exactly, reporting false if the result does not fit in int64; like Add it stays in int64
-// for small values.
+// Mul returns r·s exactly, reporting false if the result does not fit in
+// int64. Cross-cancelling first (gcd of each numerator with the other
+// denominator) leaves a reduced product, computed in 128 bits.
 func (r Rat) Mul(s Rat) (Rat, bool) {
-	if r.Den == 0 {
-		r.Den = 1
+	r, s = r.norm(), s.norm()
+	if r.Num == 0 || s.Num == 0 {
+		return Rat{0, 1}, true
 	}
-	if s.Den == 0 {
-		s.Den = 1
+	g1 := gcd(abs(r.Num), uint64(s.Den))
+	g2 := gcd(abs(s.Num), uint64(r.Den))
+	nh, nl := bits.Mul64(abs(r.Num)/g1, abs(s.Num)/g2)
+	dh, dl := bits.Mul64(uint64(r.Den)/g2, uint64(s.Den)/g1)
+	if dh != 0 {
+		return Rat{}, false
 	}
-	if r.small() && s.small() {
-		return Rat{r.Num * s.Num, r.Den * s.Den}.norm(), true
-	}
-	return fromBig(new(big.Rat).Mul(r.big(), s.big()))
+	return fromParts((r.Num < 0) != (s.Num < 0), nh, nl, dl)
 }
 
 // Neg returns −r. It never overflows for values made by this package.
@@ -127,14 +151,12 @@ func (r Rat) Sign() int {
 // IsZero reports whether r is 0.
 func (r Rat) IsZero() bool { return r.Num == 0 }
 
-// Float returns the float64 nearest to r.
+// Float returns r as a float64: the nearest one when Num and Den are at most
+// 2⁵³ (one correctly rounded division), else within a few units in the last
+// place (the parts are rounded first).
 func (r Rat) Float() float64 {
 	r = r.norm()
-	if abs(r.Num) <= 1<<53 && r.Den <= 1<<53 {
-		return float64(r.Num) / float64(r.Den) // both exact: one correctly rounded division
-	}
-	f, _ := r.big().Float64()
-	return f
+	return float64(r.Num) / float64(r.Den)
 }
 
 // String returns r as an integer ("2"), as a decimal when the decimal
