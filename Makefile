@@ -4,7 +4,9 @@ WASMEXEC := $(shell $(GO) env GOROOT)/lib/wasm
 FUZZTIME ?= 4s
 WASMENV  := PATH="$(WASMEXEC):$$PATH" GOOS=js GOARCH=wasm
 
-.PHONY: test vet fmt unit wasm-test fuzz bench html run
+WRANGLER_ENV := WRANGLER_SEND_METRICS=false WRANGLER_HIDE_BANNER=true CLOUDFLARE_CF_FETCH_ENABLED=false
+
+.PHONY: test vet fmt unit wasm-test fuzz bench html run worker-build worker-dev worker-bench
 
 test: vet fmt unit wasm-test fuzz
 
@@ -33,5 +35,28 @@ fuzz:
 	  done; \
 	done
 
-bench:
+# Benchmarks: the engine and the MDF solver natively, the page in headless Chromium, the edge service under
+# load (2,000 requests at concurrency 8 against wrangler dev on 127.0.0.1).
+bench: worker-bench
 	$(GO) test -run='^$$' -bench=. -benchmem ./engine/...
+	$(GO) test -run='^$$' -bench=. -benchtime=1x ./web/browser/
+
+# The single-file page: the engine compiled to WebAssembly, gzipped and inlined with the page's sources.
+html:
+	$(GO) run ./web/cmd/gibbsheet-html -o dist/gibbsheet.html
+
+# Builds the page and serves it on http://127.0.0.1:8080 (the file also works opened from disk).
+run:
+	$(GO) run ./web/cmd/gibbsheet-html -o dist/gibbsheet.html -serve 127.0.0.1:8080
+
+# The edge service (wasm/worker/README.md): built the way github.com/syumai/workers builds for Workers.
+worker-build: html
+	GO=$(GO) sh wasm/worker/build.sh dist/gibbsheet.html
+
+# Runs the service locally on 127.0.0.1:8787, offline, with a local KV store.
+worker-dev: worker-build
+	@test -x wasm/worker/node_modules/.bin/wrangler || { echo "wrangler is not installed: run (cd wasm/worker && npm ci)"; exit 1; }
+	cd wasm/worker && $(WRANGLER_ENV) node_modules/.bin/wrangler dev --local --ip 127.0.0.1 --port 8787
+
+worker-bench:
+	$(GO) test -count=1 -run='^$$' -bench=Load -benchtime=1x ./wasm/worker/
