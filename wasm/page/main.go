@@ -1,0 +1,97 @@
+//go:build js && wasm
+
+// Command page is the bridge between the worksheet page and the engine: it registers the engine's entry
+// points on globalThis.gibbsheet, passes JSON text both ways and turns any failure, a panic included, into
+// a JavaScript Error. It holds no science; everything it answers comes from package engine.
+package main
+
+import (
+	"fmt"
+	"strings"
+	"syscall/js"
+
+	"gibbsheet/engine"
+)
+
+// version is set at link time by the page assembler (-X main.version=...).
+var version = "dev"
+
+func main() {
+	js.Global().Set("gibbsheet", api())
+	select {} // keep the functions alive for the life of the page
+}
+
+// api builds the object {evaluate, compounds, csv, version} that the page calls.
+func api() js.Value {
+	evaluate := guard(func(args []js.Value) (any, error) {
+		if len(args) != 1 || args[0].Type() != js.TypeString {
+			return nil, fmt.Errorf("gibbsheet.evaluate needs one argument: the worksheet document as JSON text")
+		}
+		out, err := engine.EvaluateJSON([]byte(args[0].String()))
+		if err != nil {
+			return nil, err
+		}
+		return string(out), nil
+	})
+	compounds := guard(func([]js.Value) (any, error) {
+		return string(engine.CompoundsJSON()), nil
+	})
+	obj := js.Global().Get("Object").New()
+	obj.Set("evaluate", throwing(evaluate))
+	obj.Set("compounds", throwing(compounds))
+	obj.Set("csv", throwing(guard(table)))
+	obj.Set("version", version)
+	return obj
+}
+
+// guard wraps fn so that a returned error or a panic comes back as a JavaScript Error value (a Go
+// callback cannot throw by itself; throwing makes the wrapper throw it).
+func guard(fn func(args []js.Value) (any, error)) js.Func {
+	errorCtor := js.Global().Get("Error")
+	return js.FuncOf(func(_ js.Value, args []js.Value) (ret any) {
+		defer func() {
+			if p := recover(); p != nil {
+				ret = errorCtor.New(fmt.Sprintf("internal error in the engine: %v", p))
+			}
+		}()
+		v, err := fn(args)
+		if err != nil {
+			return errorCtor.New(err.Error())
+		}
+		return v
+	})
+}
+
+// table is gibbsheet.csv(worksheet[, separator]): the results table of engine.ResultsTable, comma-separated
+// (CSV) unless the separator is given ("\t" for the clipboard).
+func table(args []js.Value) (any, error) {
+	if len(args) < 1 || len(args) > 2 || args[0].Type() != js.TypeString {
+		return nil, fmt.Errorf("gibbsheet.csv needs the worksheet document as JSON text and, optionally, a separator")
+	}
+	sep := ','
+	if len(args) == 2 {
+		s := []rune(args[1].String())
+		if args[1].Type() != js.TypeString || len(s) != 1 || !strings.ContainsRune(",;\t", s[0]) {
+			return nil, fmt.Errorf("gibbsheet.csv: the separator must be \",\", \";\" or a tab")
+		}
+		sep = s[0]
+	}
+	out, err := engine.ResultsTable([]byte(args[0].String()), sep)
+	if err != nil {
+		return nil, err
+	}
+	return string(out), nil
+}
+
+// throwing returns a JavaScript function that calls f and throws the Error values f returns. In the page
+// the wrapper comes from globalThis.gibbsheetThrowing, which js/engine.js defines before starting the
+// engine: the page's Content-Security-Policy forbids making functions from text. Elsewhere (Node, the
+// tests) it is made with the Function constructor.
+func throwing(f js.Func) js.Value {
+	if w := js.Global().Get("gibbsheetThrowing"); w.Type() == js.TypeFunction {
+		return w.Invoke(f)
+	}
+	wrap := js.Global().Get("Function").New("f",
+		`return function (...args) { const r = f(...args); if (r instanceof Error) throw r; return r; };`)
+	return wrap.Invoke(f)
+}

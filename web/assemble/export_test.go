@@ -1,0 +1,4 @@
+package assemble
+
+// Bundle exposes bundle to the external tests.
+var Bundle = bundle

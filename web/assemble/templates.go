@@ -1,0 +1,45 @@
+package assemble
+
+import (
+	"encoding/json"
+	"fmt"
+
+	"gibbsheet/pathways"
+	"gibbsheet/web/inject"
+)
+
+// TemplatesID is the id of the inert script element that carries the pathway templates in the page.
+const TemplatesID = "gibbsheet-templates"
+
+// markTemplates in src/index.html is replaced by the templates element.
+const markTemplates = "<!-- gibbsheet:templates -->"
+
+// template is one entry of the templates element: the picker's line and the worksheet it opens.
+type template struct {
+	File    string          `json:"file"`
+	Title   string          `json:"title"`
+	Summary string          `json:"summary"`
+	Doc     json.RawMessage `json:"doc"`
+}
+
+// templatesElement returns the element that embeds every pathway template, so that the page opened from
+// file:// needs no fetch: [{file, title, summary, doc}] as JSON escaped by inject.Escape.
+func templatesElement() (string, error) {
+	all, err := pathways.All()
+	if err != nil {
+		return "", fmt.Errorf("assemble: pathway templates: %w", err)
+	}
+	list := make([]template, 0, len(all))
+	for _, t := range all {
+		list = append(list, template{File: t.File, Title: t.Title, Summary: t.Summary, Doc: t.Doc})
+	}
+	raw, err := json.Marshal(list)
+	if err != nil {
+		return "", fmt.Errorf("assemble: pathway templates: %w", err)
+	}
+	esc, err := inject.Escape(raw)
+	if err != nil {
+		return "", fmt.Errorf("assemble: pathway templates: %w", err)
+	}
+	return `<script type="application/json" id="` + TemplatesID + `">` + string(esc) + `</script>`, nil
+}
