@@ -21,9 +21,9 @@ fmt:
 unit:
 	$(GO) test -count=1 ./...
 
-# The engine's tests again, compiled to WebAssembly and run under Node.
+# The engine's tests again, compiled to WebAssembly and run under Node, and the page's bridge.
 wasm-test:
-	$(WASMENV) $(GO) test -count=1 ./engine/...
+	$(WASMENV) $(GO) test -count=1 ./engine/... ./wasm/page
 
 # Every fuzz target for $(FUZZTIME); a fuzz target is any `func FuzzX(f *testing.F)` in a _test.go file.
 fuzz:
