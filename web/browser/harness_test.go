@@ -51,6 +51,12 @@ type page struct {
 // file from file:// and waits until the first result is drawn.
 func openPage(t testing.TB, width, height int) *page {
 	t.Helper()
+	return openURL(t, "file://"+pagePath, width, height)
+}
+
+// openURL is openPage for any address, such as the page served by the edge service's handler.
+func openURL(t testing.TB, url string, width, height int) *page {
+	t.Helper()
 	if _, err := os.Stat(chromium); err != nil {
 		t.Fatalf("the browser tests need Chromium at %s: %v", chromium, err)
 	}
@@ -77,7 +83,7 @@ func openPage(t testing.TB, width, height int) *page {
 	if err := chromedp.Listen(ctx, p.listen); err != nil {
 		t.Fatalf("starting Chromium: %v", err)
 	}
-	p.do(chromedp.EmulateViewport(int64(width), int64(height)), chromedp.Navigate("file://"+pagePath))
+	p.do(chromedp.EmulateViewport(int64(width), int64(height)), chromedp.Navigate(url))
 	p.waitFor(`document.body.dataset.ready === "true"`)
 	p.noErrors()
 	return p

@@ -13,7 +13,10 @@ const Marker = `<meta name="gibbsheet-service" content="` + WorksheetsPath + `">
 // ErrNoHead means the page has no <head> element to put the marker in.
 var ErrNoHead = errors.New("service: the page has no <head> element")
 
-// MarkPage returns a copy of page with Marker right after the opening <head> tag.
+// MarkPage returns a copy of page with Marker right after the opening <head> tag. The page's
+// Content-Security-Policy forbids every connection (connect-src 'none'), which is right for a file; a page
+// served by the service must reach the service to publish, so its policy allows its own origin instead
+// (connect-src 'self') and nothing else.
 func MarkPage(page []byte) ([]byte, error) {
 	at := headEnd(page)
 	if at < 0 {
@@ -22,8 +25,19 @@ func MarkPage(page []byte) ([]byte, error) {
 	out := make([]byte, 0, len(page)+len(Marker))
 	out = append(out, page[:at]...)
 	out = append(out, Marker...)
-	return append(out, page[at:]...), nil
+	rest := page[at:]
+	if i := bytes.Index(rest[:min(len(rest), headSearch)], noConnect); i >= 0 {
+		out = append(out, rest[:i]...)
+		out = append(out, selfConnect...)
+		rest = rest[i+len(noConnect):]
+	}
+	return append(out, rest...), nil
 }
+
+var (
+	noConnect   = []byte("connect-src 'none'")
+	selfConnect = []byte("connect-src 'self'")
+)
 
 // headSearch is how far into the page the opening <head> tag is looked for.
 const headSearch = 64 << 10

@@ -255,11 +255,15 @@ func origin(r *http.Request) string {
 	return scheme + "://" + r.Host
 }
 
-// sendPage sends page with Marker after its opening <head> tag (New has checked that there is one).
+// sendPage sends page as MarkPage marks it (New has checked that it has a <head>).
 func sendPage(w http.ResponseWriter, r *http.Request, page []byte, cache string) {
-	at := headEnd(page)
+	marked, err := MarkPage(page)
+	if err != nil {
+		sendError(w, http.StatusInternalServerError, err.Error())
+		return
+	}
 	w.Header().Set("Cache-Control", cache)
-	send(w, r, http.StatusOK, "text/html; charset=utf-8", page[:at], []byte(Marker), page[at:])
+	send(w, r, http.StatusOK, "text/html; charset=utf-8", marked)
 }
 
 func sendError(w http.ResponseWriter, status int, msg string) {

@@ -270,6 +270,9 @@ func TestMarkPage(t *testing.T) {
 		{"<!doctype html><HEAD lang=en>\n<meta>", "<!doctype html><HEAD lang=en>" + m + "\n<meta>"},
 		{"<header></header><head>", "<header></header><head>" + m},
 		{"<head\n>", "<head\n>" + m},
+		// A served page may reach its own origin to publish; every other source stays closed.
+		{`<head><meta http-equiv="Content-Security-Policy" content="default-src 'none'; connect-src 'none'">`,
+			`<head>` + m + `<meta http-equiv="Content-Security-Policy" content="default-src 'none'; connect-src 'self'">`},
 	}
 	for _, tt := range tests {
 		got, err := service.MarkPage([]byte(tt.in))

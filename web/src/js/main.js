@@ -22,6 +22,7 @@ import { setupCompartments, renderCompartments } from "./compartments.js";
 import { setupShare, markEmbedded, isDemo } from "./share.js";
 import { setupKeep, chooseInitial, mayReplace } from "./keep.js";
 import { setupHistory } from "./history.js";
+import { setupPublish } from "./publish.js";
 
 let firstResult = true;
 
@@ -94,6 +95,7 @@ function wire() {
   setupCompartments();
   setupHistory();
   setupKeep();
+  setupPublish();
 }
 
 async function main() {
