@@ -224,6 +224,10 @@ func (c *CompoundUse) appendJSON(dst []byte) []byte {
 	}
 	dst = append(dst, `,"dfG0prime":`...)
 	dst = appendJSONFloatPtr(dst, c.DfG0Prime)
+	if c.Approximation != "" {
+		dst = append(dst, `,"approximation":`...)
+		dst = appendJSONString(dst, c.Approximation)
+	}
 	dst = append(dst, `,"rows":`...)
 	dst = appendJSONSlice(dst, c.Rows, appendJSONStringAt)
 	return append(dst, '}')

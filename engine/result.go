@@ -120,6 +120,7 @@ type CompoundUse struct {
 	AtDefault     bool     `json:"atDefault"` // no concentration entered
 	Fixed         string   `json:"fixed,omitempty"`
 	DfG0Prime     *float64 `json:"dfG0prime"`
+	Approximation string   `json:"approximation,omitempty"` // how the compound's data are approximate
 	Rows          []string `json:"rows"`
 }
 

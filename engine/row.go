@@ -236,7 +236,7 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, atReference bool, out
 			}
 		}
 		if r.approx != "" {
-			once("approximate-data", fmt.Sprintf("the data for %s are approximate: %s", r.name, r.approx))
+			once("approximate-data", "the data for "+r.name+" are approximate (the compound list says how)")
 		}
 		if r.own != nil && r.own.DfG0Prime != nil && in.DG0 == nil {
 			once("entered-formation-energy", fmt.Sprintf("ΔfG'° of %s is used as entered and does not follow "+

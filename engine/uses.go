@@ -14,7 +14,7 @@ func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
 		return
 	}
 	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name + tagOf(t.Compartment), Name: r.name,
-		Compartment: r.comp.id, Rows: []string{rowID}})
+		Compartment: r.comp.id, Approximation: r.approx, Rows: []string{rowID}})
 	u := &ev.res.Compounds[len(ev.res.Compounds)-1]
 	if r.lib != nil {
 		u.Library = r.lib.ID

@@ -75,7 +75,8 @@ function drawLine(line, cu) {
   const name = cu ? cu.id : line.key;
   line.name.replaceChildren(el("span", { class: "cname" }, name),
     cu && cu.name && cu.name.toLowerCase() !== name.toLowerCase() ? el("span", { class: "aside" }, " " + cu.name) : "",
-    cu?.own ? el("span", { class: "tag" }, " worksheet") : "");
+    cu?.own ? el("span", { class: "tag" }, " worksheet") : "",
+    cu?.approximation ? el("details", { class: "approx" }, el("summary", {}, "≈ approximate data"), el("span", {}, cu.approximation)) : "");
   line.tr.classList.toggle("at-default", !!cu?.atDefault && !cu?.fixed);
   line.tr.classList.toggle("unused", !cu);
   line.input.disabled = !!cu?.fixed && !(line.key in store.doc.concentrations);
