@@ -321,6 +321,16 @@ func TestSaveAndReopen(t *testing.T) {
 	if rows := back["rows"].([]any); len(rows) != len(want["rows"].([]any))+1 {
 		t.Errorf("%d rows after adding one to %d", len(rows), len(want["rows"].([]any)))
 	}
+	// Back home, the file sent back opens in the page through "Open a file…".
+	backPath := filepath.Join(t.TempDir(), "returned.html")
+	if err := os.WriteFile(backPath, returned, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	p.do(chromedp.SetUploadFiles(chromedp.CSS("#import-input"), []string{backPath}))
+	p.waitFor(`document.getElementById("share-msg").textContent.includes("Opened")`)
+	if diff := cmp.Diff(back, p.doc()); diff != "" {
+		t.Errorf("the returned file opened in the page (-sent +opened):\n%s", diff)
+	}
 	q.clean()
 	if out, stopped := q.outside(savedPath); len(out)+len(stopped) > 0 {
 		t.Errorf("the saved file made requests outside itself: %v %v", out, stopped)

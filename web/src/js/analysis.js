@@ -7,7 +7,7 @@
 import { store, recompute, fieldError } from "./state.js";
 import { el, energy, energyIn, num, molar, powerOfTen, unitLabel } from "./format.js";
 import { bind } from "./fields.js";
-import { W, H, M, esc, frame, scale, empty } from "./charts.js";
+import { W, M, esc, frame, scale, empty } from "./charts.js";
 
 // DEFAULT_BOUNDS is the range the engine uses when the worksheet sets none (engine.DefaultLowerBound and
 // DefaultUpperBound: 1 µM to 10 mM, common practice in pathway analysis).
@@ -101,8 +101,9 @@ export function setupAnalysis() {
         el("th", { scope: "col" }, "To make it downhill"))),
       ui.rows)),
     el("h3", {}, "Concentrations: entered and at the optimum"),
-    el("p", { class: "bounds-default" }, "The optimum keeps each compound within its bounds; the default range is ",
-      ui.defLow, " to ", ui.defHigh, ". ", el("span", { class: "aside" }, "A low bound equal to the high one holds the compound fixed; empty fields use 1 µM to 10 mM."), ui.defMsg),
+    el("p", { class: "aside" }, "The optimum keeps each compound within its bounds. A low bound equal to the high one holds the compound fixed; empty fields use the default range."),
+    el("p", { class: "bounds-default" }, "Default range for every compound not listed with its own: ",
+      ui.defLow, " to ", ui.defHigh, ui.defMsg),
     el("div", { class: "scroll-x" }, el("table", { class: "mdf-table conc" },
       el("thead", {}, el("tr", {},
         el("th", { scope: "col" }, "Compound"), el("th", { scope: "col" }, "Entered"), el("th", { scope: "col" }, "At the optimum"),
@@ -113,6 +114,14 @@ export function setupAnalysis() {
 
 // renderAnalysis draws the panel from store.result.mdf and the rows' flux-force and remedies.
 export function renderAnalysis() {
+  if (ui.doc !== store.doc) {
+    // Another worksheet: its rows and bound keys share nothing with the lines drawn for the last one.
+    ui.doc = store.doc;
+    rowLines.clear();
+    concLines.clear();
+    concSignature = "";
+    ui.rows.replaceChildren();
+  }
   const m = store.result?.mdf ?? null;
   const unit = store.ui.unit;
   const steps = stepNumbers();
@@ -141,6 +150,7 @@ function drawChart(m, unit, steps) {
   const byId = new Map((m?.rows ?? []).map((r) => [r.id, r]));
   if (!m || byId.size === 0) {
     ui.chart.replaceChildren(empty("The chart appears once a step has a ΔrG'°."));
+    ui.chartSVG = "";
     return;
   }
   const vals = rows.map((r) => (byId.has(r.id) ? energyIn(byId.get(r.id).drivingForce, unit) : 0));
@@ -175,7 +185,12 @@ function drawChart(m, unit, steps) {
   parts.push(`<line class="mdf-line" x1="${M.left}" x2="${W - M.right}" y1="${ym}" y2="${ym}"/>`);
   parts.push(`<text class="mdf-label" x="${W - M.right - 2}" y="${(+ym - 4).toFixed(1)}" text-anchor="end">MDF ${esc(num(mdf, 2))}</text>`);
   parts.push("</svg>");
-  ui.chart.innerHTML = parts.join("");
+  const svg = parts.join("");
+  // Most edits leave the optimum as it was: the chart is parsed again only when it changed.
+  if (ui.chartSVG !== svg) {
+    ui.chartSVG = svg;
+    ui.chart.innerHTML = svg;
+  }
 }
 
 function drawRows(m, unit) {

@@ -12,11 +12,11 @@ import { sheets } from "./keep.js";
 
 // STYLES gives each compared worksheet its line: dash pattern, marker and colour class.
 const STYLES = [
-  { dash: "", marker: "circle" },
-  { dash: "7 4", marker: "square" },
-  { dash: "2 3", marker: "triangle" },
-  { dash: "10 3 2 3", marker: "diamond" },
-  { dash: "4 2 4 6", marker: "cross" },
+  { dash: "", marker: "circle", line: "solid" },
+  { dash: "7 4", marker: "square", line: "dashed" },
+  { dash: "2 3", marker: "triangle", line: "dotted" },
+  { dash: "10 3 2 3", marker: "diamond", line: "dash-dot" },
+  { dash: "4 2 4 6", marker: "cross", line: "uneven dashes" },
 ];
 const LETTERS = "ABCDEFGHIJ";
 
@@ -161,6 +161,7 @@ export function renderCompare() {
   if (list.length < 2) {
     ui.table.replaceChildren(empty(list.length === 0 ? "Choose two or more worksheets to compare." : "Add one more worksheet to compare."));
     ui.chart.replaceChildren();
+    ui.chartSVG = "";
     ui.legend.replaceChildren();
     if (list.length === 1 && !list[0].open) ui.table.append(removeButton(list[0], 0));
     return;
@@ -252,13 +253,17 @@ function drawChart(list) {
     parts.push(`<text class="end-label s${l.k % STYLES.length}" x="${(l.x + dx).toFixed(1)}" y="${(l.y - 6).toFixed(1)}" text-anchor="${anchor}">${LETTERS[l.k]}</text>`);
   }
   parts.push("</svg>");
-  ui.chart.innerHTML = parts.join("");
+  const svg = parts.join("");
+  if (ui.chartSVG !== svg) {
+    ui.chartSVG = svg;
+    ui.chart.innerHTML = svg;
+  }
   ui.legend.replaceChildren(...list.map((e, k) => {
     const st = STYLES[k % STYLES.length];
     const svg = `<svg viewBox="0 0 44 12" width="44" height="12" aria-hidden="true"><g class="series s${k % STYLES.length}">` +
       `<line class="line" x1="2" x2="42" y1="6" y2="6"${st.dash ? ` stroke-dasharray="${st.dash}"` : ""}/>${marker(st.marker, 22, 6)}</g></svg>`;
     const li = el("li", {}, el("span", { class: "swatch" }), el("b", {}, LETTERS[k] + " "), e.label,
-      el("span", { class: "aside" }, ` · ${st.marker} markers${st.dash ? ", dashed" : ", solid"} · ends at ${num(series[k][series[k].length - 1], 1)} ${unitLabel(unit)}`));
+      el("span", { class: "aside" }, ` · ${st.marker} markers, ${st.line} line · ends at ${num(series[k][series[k].length - 1], 1)} ${unitLabel(unit)}`));
     li.firstChild.innerHTML = svg;
     return li;
   }));

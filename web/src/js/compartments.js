@@ -48,7 +48,10 @@ export function transportDetail(rr, unit) {
   if (!t || !t.moves?.length) return "";
   const u = unitLabel(unit);
   const moves = t.moves.map((m) => `${num(m.amount, m.amount % 1 ? 2 : 0)} ${m.compound} ${m.from}→${m.to} (${signed(energyIn(m.work, unit), 2)} ${u} each)`);
-  return `⇄ transport: ${moves.join("; ")} · work of moving ${signed(energyIn(t.work, unit), 2)} ${u}, included in ΔrG'°`;
+  const c = rr.cost;
+  const protons = !c || !c.protons ? "" : ` · ${c.protons < 0 ? `protons pumped out ${num(-c.protons, 2)}` : `protons let back ${num(c.protons, 2)}`}` +
+    ` (worth ${num(c.protonATP, 2)} ATP eq. in the cost)`;
+  return `⇄ transport: ${moves.join("; ")} · work of moving ${signed(energyIn(t.work, unit), 2)} ${u}, included in ΔrG'°${protons}`;
 }
 
 function comps() {

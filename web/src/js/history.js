@@ -105,6 +105,9 @@ export function setupHistory() {
     const isUndo = k === "z" && !ev.shiftKey;
     const isRedo = (k === "z" && ev.shiftKey) || (k === "y" && !ev.shiftKey);
     if (!isUndo && !isRedo) return;
+    // Fields that are not part of the worksheet (searching the templates, renaming in the list) keep
+    // their own undo.
+    if (ev.target.closest?.("#tpl-picker, #sheets, #compare") || ev.target.type === "search") return;
     ev.preventDefault(); // the document's history, not the field's own
     if (isUndo) undo();
     else redo();

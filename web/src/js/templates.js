@@ -97,7 +97,7 @@ export function setupTemplates() {
     if (ev.key === "ArrowDown" && n) { picker.index = (picker.index + 1) % n; drawList(); ev.preventDefault(); }
     else if (ev.key === "ArrowUp" && n) { picker.index = (picker.index + n - 1) % n; drawList(); ev.preventDefault(); }
     else if (ev.key === "Enter" && n) { ev.preventDefault(); choose(picker.shown[picker.index]); }
-    else if (ev.key === "Escape") { ev.preventDefault(); closePicker(); }
+    else if (ev.key === "Escape") { ev.preventDefault(); closePicker(); picker.opener.focus(); }
   });
   box.addEventListener("mousedown", (ev) => { if (ev.target === box) closePicker(); });
 }
