@@ -84,7 +84,7 @@ export function renderConditions() {
   }
 }
 
-const OWN_PANEL = /^(concentrations|compounds|rows)\b/;
+const OWN_PANEL = /^(concentrations|compounds|rows|bounds|compartments|defaultCompartment)\b/;
 
 // renderDocMessages lists problems with the document as a whole and with fields that have no message
 // place of their own (conditions, title, default concentration, values).
