@@ -93,6 +93,7 @@ func TestBundleRejects(t *testing.T) {
 		{"missing module", map[string]string{"main.js": `import { a } from "./x.js";`}, "not in"},
 		{"missing name", map[string]string{"main.js": `import { b } from "./x.js";`, "x.js": "export const a = 1;"}, "does not export"},
 		{"cycle", map[string]string{"main.js": `import { a } from "./x.js";`, "x.js": "import { m } from \"./main.js\";\nexport const a = 1;"}, "cycle"},
+		{"literal over lines", map[string]string{"main.js": "export const t = `a\n  b`;"}, "spans lines"},
 	}
 	for _, c := range cases {
 		fsys := memFS(t, c.files)

@@ -1,7 +1,11 @@
 package assemble_test
 
 import (
+	"bytes"
+	"compress/gzip"
 	"encoding/json"
+	"io"
+	"strconv"
 	"regexp"
 	"testing"
 
@@ -17,16 +21,26 @@ func TestTemplatesEmbedded(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	re := regexp.MustCompile(`<script type="application/json" id="` + assemble.TemplatesID + `">([^<]*)</script>`)
+	re := regexp.MustCompile(`<script type="application/octet-stream" id="` + assemble.TemplatesID +
+		`" data-encoding="gzip\+text7" data-length="(\d+)">([^<]*)</script>`)
 	m := re.FindAllSubmatch(p.HTML, -1)
 	if len(m) != 1 {
 		t.Fatalf("found %d templates elements whose text has no '<', want exactly 1", len(m))
+	}
+	n, _ := strconv.Atoi(string(m[0][1]))
+	zr, err := gzip.NewReader(bytes.NewReader(assemble.FromText7(string(m[0][2]), n)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	raw, err := io.ReadAll(zr)
+	if err != nil {
+		t.Fatal(err)
 	}
 	var got []struct {
 		File, Title, Summary string
 		Doc                  json.RawMessage
 	}
-	if err := json.Unmarshal(m[0][1], &got); err != nil {
+	if err := json.Unmarshal(raw, &got); err != nil {
 		t.Fatalf("templates element is not JSON: %v", err)
 	}
 	want, err := pathways.All()

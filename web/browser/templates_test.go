@@ -47,7 +47,7 @@ func TestTemplatePicker(t *testing.T) {
 	p.do(chromedp.KeyEvent("glycolysis"))
 	p.waitFor(`document.querySelector("#tpl-list li.on .tpl-title")?.textContent.startsWith("Glycolysis")`)
 	p.shot("template-picker")
-	rows := eval[int](p, `JSON.parse(document.getElementById("gibbsheet-templates").textContent).find(t => t.file === "glycolysis.json").doc.rows.length`)
+	rows := eval[int](p, `globalThis.gibbsheetPage.templates().find(t => t.file === "glycolysis.json").doc.rows.length`)
 	p.key(kb.Enter)
 	p.waitFor(`document.getElementById("tpl-picker").hidden && gibbsheetPage.store.doc.title.startsWith("Glycolysis")`)
 	if got := eval[int](p, `document.querySelectorAll("#grid-body tr.row").length`); got != rows {

@@ -4,7 +4,7 @@
 
 // text7Bytes decodes the engine's text (see Text7 in web/assemble): 7 bits per character, characters
 // from U+0100 on standing for the value minus 0x100; length is the number of bytes.
-function text7Bytes(text, length) {
+export function text7Bytes(text, length) {
   const out = new Uint8Array(length);
   let acc = 0;
   let bits = 0;
@@ -22,6 +22,13 @@ function text7Bytes(text, length) {
   }
   if (o !== length) throw new Error(`the engine inside this page is cut short (${o} of ${length} bytes)`);
   return out;
+}
+
+// inflateText returns the text of an element written like the engine (gzip, then Text7), as the
+// templates are.
+export async function inflateText(holder) {
+  const gz = text7Bytes(holder.textContent, Number(holder.dataset.length));
+  return new Response(new Blob([gz]).stream().pipeThrough(new DecompressionStream("gzip"))).text();
 }
 
 // startEngine instantiates the engine and returns globalThis.gibbsheet.

@@ -15,7 +15,7 @@ import { renderBalance } from "./balance.js";
 import { renderProfile, renderCost } from "./charts.js";
 import { refreshFields, markFields } from "./fields.js";
 import { unitLabel } from "./format.js";
-import { setupTemplates } from "./templates.js";
+import { setupTemplates, prepareTemplates, templates } from "./templates.js";
 import { setupAnalysis, renderAnalysis } from "./analysis.js";
 import { setupCompare, renderCompare } from "./compare.js";
 import { setupCompartments, renderCompartments } from "./compartments.js";
@@ -109,6 +109,7 @@ async function main() {
     return;
   }
   state.textContent = "";
+  await prepareTemplates();
   document.getElementById("version").textContent = "version " + store.engine.version;
   setupShare(); // before anything else reads the page: it keeps the texts the page saves itself from
   let initial;
@@ -136,6 +137,6 @@ async function main() {
 }
 
 // The page's functions for tests, benchmarks and features that load or read worksheets.
-globalThis.gibbsheetPage = { store, loadDocument, emptyDocument, recompute, timings };
+globalThis.gibbsheetPage = { store, loadDocument, emptyDocument, recompute, timings, templates };
 
 main();

@@ -5,9 +5,22 @@
 import { store, loadDocument } from "./state.js";
 import { el } from "./format.js";
 import { focusCell } from "./grid.js";
+import { inflateText } from "./engine.js";
 
 let list = null; // [{file, title, summary, doc, steps, names, haystack}]
 let readError = "";
+let text = null; // the templates' JSON, once inflated by prepareTemplates
+
+// prepareTemplates inflates the embedded templates (gzip + Text7, like the engine); main awaits it at start.
+export async function prepareTemplates() {
+  const holder = document.getElementById("gibbsheet-templates");
+  if (!holder) return;
+  try {
+    text = await inflateText(holder);
+  } catch (e) {
+    readError = "the templates inside this page could not be read: " + (e.message || e);
+  }
+}
 
 // SEPARATOR splits an equation into terms as the engine's grammar does.
 const SEPARATOR = / \+ |<=>|⇌|->|→|=/;
@@ -31,11 +44,10 @@ export function compoundNames(doc) {
 // are the stored ones and must be copied before they are edited (see openTemplate).
 export function templates() {
   if (list !== null) return list;
+  if (text === null) return []; // not inflated (yet): nothing to offer
   list = [];
-  const holder = document.getElementById("gibbsheet-templates");
-  if (!holder) return list;
   try {
-    for (const t of JSON.parse(holder.textContent)) {
+    for (const t of JSON.parse(text)) {
       const names = compoundNames(t.doc);
       list.push({ ...t, steps: (t.doc.rows ?? []).length, names,
         haystack: [t.title, t.summary, ...names].join("\n").toLowerCase() });
