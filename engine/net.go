@@ -28,7 +28,10 @@ func (n *netReaction) add(nu []stoich, times float64) {
 	if n.coef == nil {
 		n.coef = map[string]*netCoef{}
 	}
-	t, tOK := equation.RatFromFloat(times)
+	t, tOK := equation.Rat{Num: int64(times), Den: 1}, true
+	if times != math.Trunc(times) || math.Abs(times) > 1<<53 {
+		t, tOK = equation.RatFromFloat(times)
+	}
 	for _, s := range nu {
 		c, ok := n.coef[s.key]
 		if !ok {

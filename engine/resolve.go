@@ -52,6 +52,12 @@ type reactant struct {
 	ref *reactant // the same at 298.15 K, made by atReference when first needed
 }
 
+// reactantID identifies a reactant within one evaluation without building its key.
+type reactantID struct {
+	c    *compound
+	comp *compartment
+}
+
 // normalName folds a name for case-insensitive matching of the worksheet's own compounds.
 func normalName(s string) string { return strings.ToLower(strings.Join(strings.Fields(s), " ")) }
 
@@ -61,12 +67,12 @@ type catalog struct {
 	own       map[string]*Compound // by normalName of id and name
 	names     map[string]*compound // by name as written; nil entries remember unknown names
 	compounds map[string]*compound // by identity
-	reactants map[string]*reactant // by reactant key
+	reactants map[reactantID]*reactant
 }
 
 func newCatalog(lib *compounds.Library, ws *Worksheet, ev *evaluation) *catalog {
 	cat := &catalog{lib: lib, own: map[string]*Compound{}, names: map[string]*compound{},
-		compounds: map[string]*compound{}, reactants: map[string]*reactant{}}
+		compounds: map[string]*compound{}, reactants: map[reactantID]*reactant{}}
 	for i := range ws.Compounds {
 		c := &ws.Compounds[i]
 		path := fmt.Sprintf("compounds[%d]", i)
@@ -230,10 +236,11 @@ func missingEnthalpy(sp []thermo.Species, c thermo.Conditions) bool {
 // reactant returns the compound in a compartment, transformed at its conditions (Alberty's transform, see
 // thermo) once per evaluation.
 func (cat *catalog) reactant(c *compound, comp *compartment) *reactant {
-	key := c.key + "[" + comp.id + "]"
-	if r, ok := cat.reactants[key]; ok {
+	id := reactantID{c, comp}
+	if r, ok := cat.reactants[id]; ok {
 		return r
 	}
+	key := c.key + "[" + comp.id + "]"
 	r := &reactant{compound: c, comp: comp, key: key, noData: c.noData}
 	switch {
 	case c.isProton():
@@ -257,7 +264,7 @@ func (cat *catalog) reactant(c *compound, comp *compartment) *reactant {
 		r.meanZ = thermo.MeanCharge(c.species, comp.cond)
 		r.noEnthalpy = missingEnthalpy(c.species, comp.cond)
 	}
-	cat.reactants[key] = r
+	cat.reactants[id] = r
 	return r
 }
 
