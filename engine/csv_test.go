@@ -11,7 +11,6 @@ import (
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
-	"github.com/google/go-cmp/cmp/cmpopts"
 )
 
 // TestResultsCSVGolden writes the results table of every golden worksheet (testdata/worksheets) and of
@@ -40,21 +39,8 @@ func TestResultsCSVGolden(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			golden := filepath.Join("../testdata/csv", name+".csv")
-			if *update {
-				if err := os.WriteFile(golden, got, 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			want, err := os.ReadFile(golden)
-			if err != nil {
-				t.Fatalf("%v (run with -update to create it)", err)
-			}
-			if diff := cmp.Diff(readTable(t, want, ','), readTable(t, got, ','),
-				cmpopts.EquateApprox(goldenTolerance, 1e-12)); diff != "" {
-				t.Errorf("CSV of %s differs from %s (-want +got):\n%s", in, golden, diff)
-			}
+			checkGolden(t, filepath.Join("../testdata/csv", name+".csv"), got,
+				func(t *testing.T, b []byte) [][]any { return readTable(t, b, ',') })
 		})
 	}
 }

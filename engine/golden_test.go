@@ -37,28 +37,36 @@ func TestGolden(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			goldenPath := filepath.Join("../testdata/results", name+".json")
-			if *update {
-				var v any
-				json.Unmarshal(out, &v)
-				pretty, _ := json.MarshalIndent(v, "", "  ")
-				if err := os.WriteFile(goldenPath, append(pretty, '\n'), 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			wantBytes, err := os.ReadFile(goldenPath)
-			if err != nil {
-				t.Fatalf("%v (run with -update to create it)", err)
-			}
-			var want, got any
-			if err := json.Unmarshal(wantBytes, &want); err != nil {
-				t.Fatal(err)
-			}
-			json.Unmarshal(out, &got)
-			if diff := cmp.Diff(want, got, cmpopts.EquateApprox(goldenTolerance, 1e-12)); diff != "" {
-				t.Errorf("result of %s differs from its golden file (-want +got):\n%s", in, diff)
-			}
+			var v any
+			json.Unmarshal(out, &v)
+			pretty, _ := json.MarshalIndent(v, "", "  ")
+			checkGolden(t, filepath.Join("../testdata/results", name+".json"), append(pretty, '\n'),
+				func(t *testing.T, b []byte) any {
+					var v any
+					if err := json.Unmarshal(b, &v); err != nil {
+						t.Fatal(err)
+					}
+					return v
+				})
 		})
+	}
+}
+
+// checkGolden compares got with the golden file at path, both turned into comparable values by decode, with
+// numbers within goldenTolerance; with -update it writes got there instead.
+func checkGolden[T any](t *testing.T, path string, got []byte, decode func(*testing.T, []byte) T) {
+	t.Helper()
+	if *update {
+		if err := os.WriteFile(path, got, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run with -update to create it)", err)
+	}
+	if diff := cmp.Diff(decode(t, want), decode(t, got), cmpopts.EquateApprox(goldenTolerance, 1e-12)); diff != "" {
+		t.Errorf("%s differs (-want +got):\n%s", path, diff)
 	}
 }

@@ -5,8 +5,8 @@ import (
 	"compress/gzip"
 	"encoding/json"
 	"io"
-	"strconv"
 	"regexp"
+	"strconv"
 	"testing"
 
 	"gibbsheet/pathways"

@@ -60,20 +60,7 @@ func openURL(t testing.TB, url string, width, height int) *page {
 	if _, err := os.Stat(chromium); err != nil {
 		t.Fatalf("the browser tests need Chromium at %s: %v", chromium, err)
 	}
-	alloc, cancelAlloc := chromedp.NewExecAllocator(context.Background(),
-		chromedp.ExecPath(chromium),
-		chromedp.Headless,
-		chromedp.NoSandbox,
-		chromedp.DisableGPU,
-		chromedp.NoFirstRun,
-		chromedp.Flag("disable-quic", true),
-		chromedp.Flag("disable-background-networking", true),
-		chromedp.Flag("disable-component-update", true),
-		chromedp.Flag("disable-sync", true),
-		chromedp.Flag("disable-dev-shm-usage", true),
-		chromedp.UserDataDir(t.TempDir()),
-		chromedp.WindowSize(width, height),
-	)
+	alloc, cancelAlloc := chromedp.NewExecAllocator(context.Background(), browserOptions(t.TempDir(), width, height)...)
 	ctx, cancel := chromedp.NewContext(alloc)
 	t.Cleanup(func() {
 		cancel()
@@ -87,6 +74,25 @@ func openURL(t testing.TB, url string, width, height int) *page {
 	p.waitFor(`document.body.dataset.ready === "true"`)
 	p.noErrors()
 	return p
+}
+
+// browserOptions starts Debian's Chromium headless with the flags this machine needs (no sandbox as root,
+// no background connections, which the closed network refuses), a profile folder and a window size.
+func browserOptions(profile string, width, height int, extra ...chromedp.ExecAllocatorOption) []chromedp.ExecAllocatorOption {
+	return append([]chromedp.ExecAllocatorOption{
+		chromedp.ExecPath(chromium),
+		chromedp.Headless,
+		chromedp.NoSandbox,
+		chromedp.DisableGPU,
+		chromedp.NoFirstRun,
+		chromedp.Flag("disable-quic", true),
+		chromedp.Flag("disable-background-networking", true),
+		chromedp.Flag("disable-component-update", true),
+		chromedp.Flag("disable-sync", true),
+		chromedp.Flag("disable-dev-shm-usage", true),
+		chromedp.UserDataDir(profile),
+		chromedp.WindowSize(width, height),
+	}, extra...)
 }
 
 func (p *page) listen(ev any) {

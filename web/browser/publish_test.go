@@ -8,7 +8,6 @@ import (
 	"net/http/httptest"
 	"os"
 	"strings"
-	"sync"
 	"testing"
 
 	"github.com/chromedp/chromedp"
@@ -16,32 +15,6 @@ import (
 
 	"gibbsheet/wasm/worker/service"
 )
-
-// memStore keeps published worksheets in memory, standing in for Workers KV.
-type memStore struct {
-	mu   sync.Mutex
-	docs map[string][]byte
-}
-
-func (s *memStore) Get(id string) ([]byte, error) {
-	s.mu.Lock()
-	defer s.mu.Unlock()
-	doc, ok := s.docs[id]
-	if !ok {
-		return nil, service.ErrNotFound
-	}
-	return doc, nil
-}
-
-func (s *memStore) Put(id string, doc []byte) error {
-	s.mu.Lock()
-	defer s.mu.Unlock()
-	if s.docs == nil {
-		s.docs = map[string][]byte{}
-	}
-	s.docs[id] = append([]byte(nil), doc...)
-	return nil
-}
 
 // TestPublishFromServedPage: served by the service's handler (the same one the Workers build runs), the
 // page offers to publish; the link it shows returns exactly the open worksheet, and opening the link shows
@@ -51,7 +24,7 @@ func TestPublishFromServedPage(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	handler, err := service.New(html, &memStore{})
+	handler, err := service.New(html, &service.MemoryStore{})
 	if err != nil {
 		t.Fatal(err)
 	}

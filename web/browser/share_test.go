@@ -24,7 +24,7 @@ import (
 	"gibbsheet/web/inject"
 )
 
-// filePage is a browser with a Gibbsheet file open, recording every network request, download and
+// filePage is a browser with a Gibbsheet file open, logging every network request, download and
 // dialog, and every Content-Security-Policy violation.
 type filePage struct {
 	*page
@@ -49,21 +49,9 @@ func openFile(t *testing.T, path, profile string, offline bool) *filePage {
 	if profile == "" {
 		profile = t.TempDir()
 	}
+	// Anything that tried to leave the machine would go to a closed local port.
 	alloc, cancelAlloc := chromedp.NewExecAllocator(context.Background(),
-		chromedp.ExecPath(chromium),
-		chromedp.Headless,
-		chromedp.NoSandbox,
-		chromedp.DisableGPU,
-		chromedp.NoFirstRun,
-		chromedp.Flag("disable-background-networking", true),
-		chromedp.Flag("disable-component-update", true),
-		chromedp.Flag("disable-sync", true),
-		chromedp.Flag("disable-dev-shm-usage", true),
-		// Anything that tried to leave the machine would go to a closed local port.
-		chromedp.Flag("proxy-server", "127.0.0.1:9"),
-		chromedp.UserDataDir(profile),
-		chromedp.WindowSize(1400, 1000),
-	)
+		browserOptions(profile, 1400, 1000, chromedp.Flag("proxy-server", "127.0.0.1:9"))...)
 	ctx, cancel := chromedp.NewContext(alloc)
 	t.Cleanup(func() {
 		cancel()

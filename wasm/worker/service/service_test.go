@@ -8,7 +8,6 @@ import (
 	"net/http"
 	"net/http/httptest"
 	"strings"
-	"sync"
 	"testing"
 
 	"gibbsheet/wasm/worker/service"
@@ -24,39 +23,26 @@ const worksheet = `{"format": "gibbsheet-worksheet/1", "title": "hexokinase",
  "conditions": {"pH": 7, "ionicStrength": 0.25, "pMg": null, "temperature": 298.15},
  "rows": [{"id": "r1", "equation": "ATP + glucose = ADP + glucose 6-phosphate"}]}`
 
-// memStore keeps documents in a map; fail, when set, is returned by every call instead.
+// memStore is a MemoryStore that counts its writes; fail, when set, is returned by every call instead.
 type memStore struct {
-	mu   sync.Mutex
-	docs map[string][]byte
+	service.MemoryStore
 	puts int
 	fail error
 }
 
 func (s *memStore) Get(id string) ([]byte, error) {
-	s.mu.Lock()
-	defer s.mu.Unlock()
 	if s.fail != nil {
 		return nil, s.fail
 	}
-	doc, ok := s.docs[id]
-	if !ok {
-		return nil, service.ErrNotFound
-	}
-	return doc, nil
+	return s.MemoryStore.Get(id)
 }
 
 func (s *memStore) Put(id string, doc []byte) error {
-	s.mu.Lock()
-	defer s.mu.Unlock()
 	if s.fail != nil {
 		return s.fail
 	}
-	if s.docs == nil {
-		s.docs = map[string][]byte{}
-	}
-	s.docs[id] = bytes.Clone(doc)
 	s.puts++
-	return nil
+	return s.MemoryStore.Put(id, doc)
 }
 
 func newHandler(t testing.TB, st service.Store) http.Handler {
@@ -210,7 +196,8 @@ func TestPublish(t *testing.T) {
 
 func TestNeverOverwrites(t *testing.T) {
 	doc := []byte(worksheet)
-	st := &memStore{docs: map[string][]byte{service.ID(doc): []byte(`{"format":"gibbsheet-worksheet/1"}`)}}
+	st := &memStore{}
+	st.MemoryStore.Put(service.ID(doc), []byte(`{"format":"gibbsheet-worksheet/1"}`))
 	checkError(t, do(newHandler(t, st), "POST", "/v1/worksheets", doc), http.StatusConflict)
 	if st.puts != 0 {
 		t.Errorf("%d puts, want none", st.puts)
