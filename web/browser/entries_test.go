@@ -182,3 +182,23 @@ func TestEditValues(t *testing.T) {
 	}
 	p.noErrors()
 }
+
+// TestRowNote: a note is written on a step from its ✎ button, kept in the document when the field is left,
+// and edited in place afterwards; the note's text is shown as text.
+func TestRowNote(t *testing.T) {
+	p := openPage(t, 1400, 900)
+	id := eval[string](p, `globalThis.gibbsheetPage.store.doc.rows[0].id`)
+	p.do(chromedp.Click(chromedp.CSS(`tr.row[data-id="`+id+`"] button[title="Write a note on this step"]`)))
+	p.waitFor(`document.activeElement && document.activeElement.classList.contains("note-input")`)
+	// The demo's first step already has a note: the field shows it, and typed text replaces the selection.
+	if got := eval[string](p, `document.activeElement.value`); got != "hexokinase" {
+		t.Errorf("note field shows %q, want the step's note %q", got, "hexokinase")
+	}
+	eval[bool](p, `(document.activeElement.select(), true)`)
+	p.do(chromedp.SendKeys(chromedp.CSS(`tr.sub[data-for="`+id+`"] .note-input`), "<b>measured</b> in lysate\r"))
+	p.waitFor(`globalThis.gibbsheetPage.store.doc.rows[0].note === "<b>measured</b> in lysate"`)
+	if n := eval[int](p, `document.querySelectorAll('tr.sub b').length`); n != 0 {
+		t.Errorf("the note was inserted as markup (%d <b> elements)", n)
+	}
+	p.noErrors()
+}

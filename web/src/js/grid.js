@@ -53,6 +53,7 @@ function makeRecord(id) {
       act("Move step up (Alt+↑)", "↑", () => moveRow(id, -1)),
       act("Move step down (Alt+↓)", "↓", () => moveRow(id, 1)),
       act("Duplicate step (Alt+Shift+↓)", "❏", () => duplicateRow(id)),
+      act("Write a note on this step", "✎", () => openNote(rec)),
       act("Remove step (Alt+Delete)", "✕", () => deleteRow(id))));
   rec.msgs = el("td", { colspan: "9", class: "msgs" });
   rec.sub = el("tr", { class: "sub", "data-for": id, hidden: true }, el("td", {}), rec.msgs);
@@ -201,7 +202,7 @@ function renderMessages(rec, r, rr, blank) {
   const errs = blank ? [] : rowErrors(rr);
   const drafts = ["times", "dg0"].map((col) => store.drafts.get(draftKey(r.id, col))?.message ?? "");
   // Redraw only what changed: most edits leave most rows' messages as they were.
-  const key = JSON.stringify([r.equation, errs, rr?.warnings, drafts, r.note, rr?.transport, store.ui.unit]);
+  const key = JSON.stringify([r.equation, errs, rr?.warnings, drafts, r.note, !!rec.noteOpen, rr?.transport, store.ui.unit]);
   if (rec.msgKey === key) return;
   rec.msgKey = key;
   drawUnderline(rec, r.equation ?? "", errs);
@@ -238,9 +239,41 @@ function renderMessages(rec, r, rr, blank) {
       `${col === "times" ? "multiplier" : "entered ΔrG'°"}: ${d.message}`));
   }
   if (rr?.transport?.moves?.length) items.push(el("li", { class: "xport-detail" }, transportDetail(rr, store.ui.unit)));
-  if (r.note) items.push(el("li", { class: "note" }, "note: " + r.note));
+  if (r.note || rec.noteOpen) items.push(noteItem(rec, r));
   rec.msgs.replaceChildren(items.length ? el("ul", {}, ...items) : "");
   rec.sub.hidden = items.length === 0;
+}
+
+// noteItem is the row's note as a field: the text is written to the row when the field is left or Enter
+// is pressed (not on every key, so the field is not redrawn under the typing).
+function noteItem(rec, r) {
+  const input = el("input", { class: "note-input", value: r.note ?? "", "aria-label": `Note on step ${rec.num.textContent}`,
+    placeholder: "a note on this step", spellcheck: "true" });
+  const take = () => {
+    rec.noteOpen = false;
+    const text = input.value.trim();
+    if (text === (r.note ?? "")) { if (!text) renderRowAgain(rec); return; }
+    edit(() => { if (text) r.note = text; else delete r.note; });
+  };
+  input.addEventListener("change", take);
+  input.addEventListener("keydown", (e) => {
+    if (e.key === "Enter") { e.preventDefault(); e.stopPropagation(); input.blur(); }
+  });
+  return el("li", { class: "note" }, el("label", {}, "note: ", input));
+}
+
+// openNote shows the note field of a row and puts the cursor in it.
+function openNote(rec) {
+  rec.noteOpen = true;
+  renderRowAgain(rec);
+  rec.msgs.querySelector(".note-input")?.focus();
+}
+
+function renderRowAgain(rec) {
+  rec.msgKey = "";
+  const r = rowOf(rec.id);
+  const rr = (store.result?.rows ?? []).find((x) => x.id === rec.id);
+  if (r) renderMessages(rec, r, rr, !r.equation || !r.equation.trim());
 }
 
 // drawUnderline marks the spans of the errors in the mirror behind the equation input.
