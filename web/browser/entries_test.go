@@ -188,7 +188,7 @@ func TestEditValues(t *testing.T) {
 func TestRowNote(t *testing.T) {
 	p := openPage(t, 1400, 900)
 	id := eval[string](p, `globalThis.gibbsheetPage.store.doc.rows[0].id`)
-	p.do(chromedp.Click(chromedp.CSS(`tr.row[data-id="`+id+`"] button[title="Write a note on this step"]`)))
+	p.do(chromedp.Click(chromedp.CSS(`tr.row[data-id="` + id + `"] button[title="Write a note on this step"]`)))
 	p.waitFor(`document.activeElement && document.activeElement.classList.contains("note-input")`)
 	// The demo's first step already has a note: the field shows it, and typed text replaces the selection.
 	if got := eval[string](p, `document.activeElement.value`); got != "hexokinase" {
