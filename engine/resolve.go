@@ -168,32 +168,13 @@ func libCompound(c *compounds.Compound) *compound {
 
 // libraryNames remembers name lookups in the built-in library across evaluations (names are normalised
 // on each lookup, which shows in profiles of the page's recompute on every keystroke).
-var libraryNames = struct {
-	sync.Mutex
-	m map[string]*compounds.Compound
-}{m: map[string]*compounds.Compound{}}
-
-// libraryNamesSize bounds the remembered names; when reached, the memory starts afresh.
-const libraryNamesSize = 4096
+var libraryNames = newMemo[*compounds.Compound](4096)
 
 func lookupLibrary(lib *compounds.Library, name string) *compounds.Compound {
 	if lib != compounds.Builtin() {
 		return lib.Lookup(name)
 	}
-	libraryNames.Lock()
-	c, ok := libraryNames.m[name]
-	libraryNames.Unlock()
-	if ok {
-		return c
-	}
-	c = lib.Lookup(name)
-	libraryNames.Lock()
-	if len(libraryNames.m) >= libraryNamesSize {
-		clear(libraryNames.m)
-	}
-	libraryNames.m[name] = c
-	libraryNames.Unlock()
-	return c
+	return libraryNames.get(name, lib.Lookup)
 }
 
 func newLibCompound(c *compounds.Compound) *compound {
