@@ -66,11 +66,22 @@ func parseModule(name, src string) (*module, error) {
 			}
 			m.exports = append(m.exports, g[2])
 			m.body = append(m.body, strings.TrimPrefix(strings.TrimPrefix(line, "export"), " "))
+		case isKeyword(trimmed, "import") || isKeyword(trimmed, "export"):
+			// An indented import or export is not one the bundle can place; it would become one once
+			// compact removes the indentation.
+			return nil, fmt.Errorf("%s: import and export lines must start at the first column", where)
 		default:
 			m.body = append(m.body, line)
 		}
 	}
 	return m, nil
+}
+
+// isKeyword reports whether s starts a declaration with the keyword kw: kw followed by white space, a
+// brace, a star, a quote or nothing.
+func isKeyword(s, kw string) bool {
+	rest, ok := strings.CutPrefix(s, kw)
+	return ok && (rest == "" || strings.ContainsRune(" \t\v\f\r{*\"'", rune(rest[0])))
 }
 
 // bundle reads every .js file of dir in fsys and returns one classic script that runs entry and, before
