@@ -36,6 +36,9 @@ type evaluation struct {
 	defc        concentration
 	res         *Result
 	uses        map[string]int // index into res.Compounds by reactant key
+	context     string         // everything in the worksheet that a row's result depends on, but the rows
+	used        []stoich       // the reactants the row being computed names
+	named       []*compound    // the compounds the row being computed names, H+ included
 }
 
 type concentration struct {
@@ -71,6 +74,7 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 	ev.values = buildValues(ws, ev.cat.key, &res.Errors)
 	ev.readConcentrations()
 	ev.checkRowIDs()
+	ev.context = contextKey(ws)
 
 	var net netReaction
 	total := Total{DG0: new(float64), DG: new(float64)}

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"bytes"
 	"encoding/json"
 	"os"
 	"path/filepath"
@@ -27,6 +28,13 @@ func FuzzEvaluateJSON(f *testing.F) {
 				t.Fatalf("a readable worksheet failed to evaluate: %v", err)
 			}
 			return
+		}
+		// Rows remembered from an evaluation give the same bytes as rows computed afresh.
+		again, _ := EvaluateJSON(data)
+		rows = &rowMemo{}
+		fresh, _ := EvaluateJSON(data)
+		if !bytes.Equal(out, again) || !bytes.Equal(out, fresh) {
+			t.Fatalf("evaluations of the same worksheet differ:\n%s\n%s\n%s", out, again, fresh)
 		}
 		var res Result
 		if err := json.Unmarshal(out, &res); err != nil {

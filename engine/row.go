@@ -19,8 +19,28 @@ import (
 //	ΔrG'  = ΔrG'° + RT ln Q,   K' = exp(−ΔrG'°/RT)
 //
 // It returns the row's result and its stoichiometry; the stoichiometry is nil when the row cannot enter
-// the totals.
+// the totals. Rows evaluated before under the same worksheet context are taken from rowMemo.
 func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
+	key := rowKeyOf(in)
+	m, ok := rows.get(ev.context, key)
+	if !ok {
+		ev.used, ev.named = nil, nil
+		m.result, m.nu = ev.computeRow(in)
+		m.used, m.named = ev.used, ev.named
+		rows.put(ev.context, key, m)
+	}
+	for _, c := range m.named {
+		ev.cat.compounds[c.key] = c
+	}
+	for _, s := range m.used {
+		if s.coef != 0 && !s.r.isProton() {
+			ev.use(s.r, s.term, in.ID)
+		}
+	}
+	return m.result, m.nu
+}
+
+func (ev *evaluation) computeRow(in *Row) (RowResult, []stoich) {
 	out := RowResult{ID: in.ID, Equation: in.Equation, Times: 1, Warnings: []Warning{}}
 	var errs []RowError
 	if in.Times != nil {
@@ -171,6 +191,7 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 			errs = append(errs, spanError(in.Equation, t.NamePos, t.NameEnd, msg, sugg))
 			return
 		}
+		ev.named = append(ev.named, c)
 		r := ev.cat.reactant(c, comp)
 		if c.isProton() && comp != protonComp {
 			protonComp = comp
@@ -208,11 +229,7 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 		out.Warnings = append(out.Warnings, Warning{Code: "proton", Message: "H+ is left out of the " +
 			"transformed equation: the pH fixes its concentration, so it carries no term"})
 	}
-	for _, s := range nu {
-		if s.coef != 0 && !s.r.isProton() {
-			ev.use(s.r, s.term, in.ID)
-		}
-	}
+	ev.used = nu // the compounds the row names, for the result's list (see row)
 	return nu, errs
 }
 

@@ -1,0 +1,59 @@
+package engine
+
+import (
+	"bytes"
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"testing"
+)
+
+// TestRowMemo: after one row of a worksheet changes, evaluating it (the other rows come from memory) gives
+// the same bytes as evaluating it with nothing remembered; so does a change of the context (a concentration),
+// which must not reuse any row.
+func TestRowMemo(t *testing.T) {
+	files, _ := filepath.Glob("../testdata/worksheets/*.json")
+	more, _ := filepath.Glob("../pathways/*.json")
+	for _, f := range append(files, more...) {
+		doc, err := os.ReadFile(f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ws, _, err := Decode(doc)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, err := EvaluateJSON(doc); err != nil { // fills the memory
+			t.Fatal(err)
+		}
+		edits := map[string]func(*Worksheet){
+			"row": func(ws *Worksheet) { ws.Rows[len(ws.Rows)-1].Equation += " + H2O" },
+			"context": func(ws *Worksheet) {
+				if ws.Concentrations == nil {
+					ws.Concentrations = map[string]string{}
+				}
+				ws.Concentrations["ATP"] = "7 mM"
+			},
+		}
+		for name, edit := range edits {
+			changed := *ws
+			changed.Rows = append([]Row(nil), ws.Rows...)
+			changed.Concentrations = map[string]string{}
+			for k, v := range ws.Concentrations {
+				changed.Concentrations[k] = v
+			}
+			edit(&changed)
+			b, _ := json.Marshal(&changed)
+			remembered, err := EvaluateJSON(b)
+			if err != nil {
+				t.Fatal(err)
+			}
+			rows = &rowMemo{}
+			fresh, _ := EvaluateJSON(b)
+			if !bytes.Equal(remembered, fresh) {
+				t.Errorf("%s, %s edit: result with remembered rows differs from a fresh evaluation", f, name)
+			}
+			EvaluateJSON(doc) // back to the original in memory
+		}
+	}
+}
