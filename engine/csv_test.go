@@ -17,24 +17,8 @@ import (
 // the table's own cases (testdata/csv/*.json) and compares it with testdata/csv/NAME.csv, numbers within
 // goldenTolerance. Run `go test ./engine -run ResultsCSVGolden -update` to accept a change.
 func TestResultsCSVGolden(t *testing.T) {
-	var inputs []string
-	for _, pat := range []string{"../testdata/worksheets/*.json", "../testdata/csv/*.json"} {
-		m, err := filepath.Glob(pat)
-		if err != nil {
-			t.Fatal(err)
-		}
-		inputs = append(inputs, m...)
-	}
-	if len(inputs) < 2 {
-		t.Fatalf("found only %d worksheets for the CSV goldens", len(inputs))
-	}
-	for _, in := range inputs {
-		name := strings.TrimSuffix(filepath.Base(in), ".json")
-		t.Run(name, func(t *testing.T) {
-			doc, err := os.ReadFile(in)
-			if err != nil {
-				t.Fatal(err)
-			}
+	eachWorksheet(t, []string{"../testdata/worksheets/*.json", "../testdata/csv/*.json"},
+		func(t *testing.T, name string, doc []byte) {
 			got, err := ResultsCSV(doc)
 			if err != nil {
 				t.Fatal(err)
@@ -42,7 +26,6 @@ func TestResultsCSVGolden(t *testing.T) {
 			checkGolden(t, filepath.Join("../testdata/csv", name+".csv"), got,
 				func(t *testing.T, b []byte) [][]any { return readTable(t, b, ',') })
 		})
-	}
 }
 
 // readTable parses a table and turns each field that is a number into a float64, so that goldens compare

@@ -22,32 +22,47 @@ const goldenTolerance = 1e-9
 // TestGolden evaluates every worksheet in testdata/worksheets and compares the result document with the
 // golden one in testdata/results. Run `go test ./engine -run Golden -update` to accept a change.
 func TestGolden(t *testing.T) {
-	inputs, err := filepath.Glob("../testdata/worksheets/*.json")
-	if err != nil || len(inputs) == 0 {
-		t.Fatalf("no golden worksheets found: %v", err)
+	eachWorksheet(t, []string{"../testdata/worksheets/*.json"}, func(t *testing.T, name string, doc []byte) {
+		out, err := EvaluateJSON(doc)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var v any
+		json.Unmarshal(out, &v)
+		pretty, _ := json.MarshalIndent(v, "", "  ")
+		checkGolden(t, filepath.Join("../testdata/results", name+".json"), append(pretty, '\n'),
+			func(t *testing.T, b []byte) any {
+				var v any
+				if err := json.Unmarshal(b, &v); err != nil {
+					t.Fatal(err)
+				}
+				return v
+			})
+	})
+}
+
+// eachWorksheet runs fn as a subtest on every worksheet file the patterns match, named by its base name;
+// it fails when they match fewer than two files, so a moved folder cannot pass unnoticed.
+func eachWorksheet(t *testing.T, patterns []string, fn func(t *testing.T, name string, doc []byte)) {
+	t.Helper()
+	var inputs []string
+	for _, pat := range patterns {
+		m, err := filepath.Glob(pat)
+		if err != nil {
+			t.Fatal(err)
+		}
+		inputs = append(inputs, m...)
+	}
+	if len(inputs) < 2 {
+		t.Fatalf("found only %d worksheets for %v", len(inputs), patterns)
 	}
 	for _, in := range inputs {
-		name := strings.TrimSuffix(filepath.Base(in), ".json")
-		t.Run(name, func(t *testing.T) {
+		t.Run(strings.TrimSuffix(filepath.Base(in), ".json"), func(t *testing.T) {
 			doc, err := os.ReadFile(in)
 			if err != nil {
 				t.Fatal(err)
 			}
-			out, err := EvaluateJSON(doc)
-			if err != nil {
-				t.Fatal(err)
-			}
-			var v any
-			json.Unmarshal(out, &v)
-			pretty, _ := json.MarshalIndent(v, "", "  ")
-			checkGolden(t, filepath.Join("../testdata/results", name+".json"), append(pretty, '\n'),
-				func(t *testing.T, b []byte) any {
-					var v any
-					if err := json.Unmarshal(b, &v); err != nil {
-						t.Fatal(err)
-					}
-					return v
-				})
+			fn(t, strings.TrimSuffix(filepath.Base(in), ".json"), doc)
 		})
 	}
 }

@@ -3,8 +3,6 @@ package engine
 import (
 	"bytes"
 	"encoding/json"
-	"os"
-	"path/filepath"
 	"testing"
 )
 
@@ -12,13 +10,7 @@ import (
 // the same bytes as evaluating it with nothing remembered; so does a change of the context (a concentration),
 // which must not reuse any row.
 func TestRowMemo(t *testing.T) {
-	files, _ := filepath.Glob("../testdata/worksheets/*.json")
-	more, _ := filepath.Glob("../pathways/*.json")
-	for _, f := range append(files, more...) {
-		doc, err := os.ReadFile(f)
-		if err != nil {
-			t.Fatal(err)
-		}
+	eachWorksheet(t, []string{"../testdata/worksheets/*.json", "../pathways/*.json"}, func(t *testing.T, name string, doc []byte) {
 		ws, _, err := Decode(doc)
 		if err != nil {
 			t.Fatal(err)
@@ -35,14 +27,14 @@ func TestRowMemo(t *testing.T) {
 				ws.Concentrations["ATP"] = "7 mM"
 			},
 		}
-		for name, edit := range edits {
+		for edit, change := range edits {
 			changed := *ws
 			changed.Rows = append([]Row(nil), ws.Rows...)
 			changed.Concentrations = map[string]string{}
 			for k, v := range ws.Concentrations {
 				changed.Concentrations[k] = v
 			}
-			edit(&changed)
+			change(&changed)
 			b, _ := json.Marshal(&changed)
 			remembered, err := EvaluateJSON(b)
 			if err != nil {
@@ -51,9 +43,9 @@ func TestRowMemo(t *testing.T) {
 			rows = &rowMemo{}
 			fresh, _ := EvaluateJSON(b)
 			if !bytes.Equal(remembered, fresh) {
-				t.Errorf("%s, %s edit: result with remembered rows differs from a fresh evaluation", f, name)
+				t.Errorf("%s edit: result with remembered rows differs from a fresh evaluation", edit)
 			}
 			EvaluateJSON(doc) // back to the original in memory
 		}
-	}
+	})
 }
