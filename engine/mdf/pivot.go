@@ -150,19 +150,18 @@ func (sx *simplex) pivot(q, dir int) error {
 }
 
 // removeP deletes position c of P by moving the last entry into it.
-func (sx *simplex) removeP(c int) {
-	last, v := len(sx.P)-1, sx.P[c]
-	sx.P[c] = sx.P[last]
-	sx.pPos[sx.P[c]] = c
-	sx.pPos[v] = -1
-	sx.P = sx.P[:last]
-}
+func (sx *simplex) removeP(c int) { removeAt(&sx.P, sx.pPos, c) }
 
 // removeT deletes position r of T by moving the last entry into it.
-func (sx *simplex) removeT(r int) {
-	last, j := len(sx.T)-1, sx.T[r]
-	sx.T[r] = sx.T[last]
-	sx.tPos[sx.T[r]] = r
-	sx.tPos[j] = -1
-	sx.T = sx.T[:last]
+func (sx *simplex) removeT(r int) { removeAt(&sx.T, sx.tPos, r) }
+
+// removeAt deletes position i of list by moving the last entry into it, keeping pos (the position of each
+// entry in list, −1 when absent) in step.
+func removeAt(list *[]int, pos []int, i int) {
+	l := *list
+	last, v := len(l)-1, l[i]
+	l[i] = l[last]
+	pos[l[i]] = i
+	pos[v] = -1
+	*list = l[:last]
 }
