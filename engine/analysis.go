@@ -75,32 +75,27 @@ type computedRow struct {
 
 // analyse adds the flux-force relation and remedies to the rows and the MDF to the result.
 func (ev *evaluation) analyse(rows []computedRow) {
-	def, byKey := ev.readBounds()
-	boundOf := func(r *reactant) bound {
-		if b, ok := byKey[r.key]; ok {
-			return b
-		}
-		return def
+	ev.res.MDF = ev.maxMinDrivingForce(rows)
+}
+
+// flux sets the row's flux-force ratio and, for an uphill step, the smallest single change of concentration
+// that would make it run forward.
+func (ev *evaluation) flux(out *RowResult, nu []stoich) {
+	if out.DG == nil {
+		return
 	}
-	for _, cr := range rows {
-		out := &ev.res.Rows[cr.index]
-		if out.DG == nil {
-			continue
-		}
-		dg := *out.DG
-		logRatio := -dg / (ev.rt * math.Ln10)
-		out.FluxForce = &FluxForce{Ratio: positiveOrNil(math.Pow(10, logRatio)), Log10Ratio: logRatio,
-			ReverseShare: math.Min(1, math.Exp(dg/ev.rt))}
-		if out.Status == StatusUphill {
-			out.Remedy = ev.remedy(dg, cr.nu, boundOf)
-		}
+	dg := *out.DG
+	logRatio := -dg / (ev.rt * math.Ln10)
+	out.FluxForce = &FluxForce{Ratio: positiveOrNil(math.Pow(10, logRatio)), Log10Ratio: logRatio,
+		ReverseShare: math.Min(1, math.Exp(dg/ev.rt))}
+	if out.Status == StatusUphill {
+		out.Remedy = ev.remedy(dg, nu)
 	}
-	ev.res.MDF = ev.maxMinDrivingForce(rows, boundOf)
 }
 
 // remedy finds the compound whose concentration, changed by the smallest factor within its bounds, brings
 // ΔrG' to zero: ΔrG' + RT ν_i Δln c_i = 0, so Δln c_i = −ΔrG'/(RT ν_i).
-func (ev *evaluation) remedy(dg float64, nu []stoich, boundOf func(*reactant) bound) *Remedy {
+func (ev *evaluation) remedy(dg float64, nu []stoich) *Remedy {
 	var best *Remedy
 	bestStep := math.Inf(1)
 	for _, s := range nu {
@@ -110,7 +105,7 @@ func (ev *evaluation) remedy(dg float64, nu []stoich, boundOf func(*reactant) bo
 		c, _ := ev.concentrationOf(s.r)
 		step := -dg / (ev.rt * s.coef)
 		to := c.molar * math.Exp(step)
-		b := boundOf(s.r)
+		b := ev.boundOf(s.r)
 		if to < b.low*(1-1e-12) || to > b.high*(1+1e-12) || math.Abs(step) >= bestStep {
 			continue
 		}
@@ -122,7 +117,7 @@ func (ev *evaluation) remedy(dg float64, nu []stoich, boundOf func(*reactant) bo
 
 // maxMinDrivingForce builds and solves the MDF linear program over the computed rows; water and H+ are
 // fixed and stay out of it.
-func (ev *evaluation) maxMinDrivingForce(rows []computedRow, boundOf func(*reactant) bound) *MDF {
+func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 	out := &MDF{Bottlenecks: []string{}, Concentrations: []OptimalConc{}, Rows: []MDFRow{}, Binding: []BindingBound{},
 		LeftOut: []string{}}
 	for i, r := range ev.res.Rows {
@@ -154,7 +149,7 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow, boundOf func(*react
 				i = len(compounds)
 				index[s.key] = i
 				compounds = append(compounds, s)
-				lo, hi := boundOf(s.r).ln()
+				lo, hi := ev.boundOf(s.r).ln()
 				p.Lower, p.Upper = append(p.Lower, lo), append(p.Upper, hi)
 			}
 			reaction.Compound = append(reaction.Compound, i)
@@ -184,7 +179,7 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow, boundOf func(*react
 	for i, s := range compounds {
 		name := s.term.Name + tagOf(s.term.Compartment)
 		c, _ := ev.concentrationOf(s.r)
-		b := boundOf(s.r)
+		b := ev.boundOf(s.r)
 		out.Concentrations = append(out.Concentrations, OptimalConc{Compound: name, Concentration: math.Exp(sol.LnConc[i]),
 			Entered: c.molar, Low: b.low, High: b.high})
 		switch {

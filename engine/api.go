@@ -2,6 +2,7 @@ package engine
 
 import (
 	"encoding/json"
+	"errors"
 	"fmt"
 	"sync"
 
@@ -13,17 +14,28 @@ import (
 // unsupported format); everything wrong inside a row is reported in that row, and wrong field values in the
 // result's errors. It does not panic: a failure of the engine itself comes back as an error too.
 func EvaluateJSON(worksheet []byte) (out []byte, err error) {
-	defer func() {
-		if p := recover(); p != nil {
-			out, err = nil, fmt.Errorf("internal error in the engine (please report it with the worksheet): %v", p)
-		}
-	}()
+	defer recoverEngine(&out, &err, nil)
 	ws, unknown, err := Decode(worksheet)
 	if err != nil {
 		return nil, err
 	}
 	return Evaluate(ws, unknown).AppendJSON(nil), nil
 }
+
+// recoverEngine, deferred, turns a panic of the engine into the error its caller returns, after calling
+// cleanup if there is one.
+func recoverEngine(out *[]byte, err *error, cleanup func()) {
+	p := recover()
+	if p == nil {
+		return
+	}
+	if cleanup != nil {
+		cleanup()
+	}
+	*out, *err = nil, fmt.Errorf("internal error in the engine (please report it with the worksheet): %v", p)
+}
+
+var errNoAnswer = errors.New("there is no worksheet to analyse yet: evaluate one first")
 
 // LibraryEntry is what the page needs of a library compound for completion and display.
 type LibraryEntry struct {

@@ -58,3 +58,40 @@ func BenchmarkEvaluateJSON(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkSession is the page's live path: each iteration changes one row's multiplier and asks the
+// session for the changes since its previous answer (ChangesJSON), without the analysis, which
+// BenchmarkSessionAnalysis times after the same keystroke.
+func BenchmarkSession(b *testing.B) {
+	for _, n := range []int{10, 100, 1000} {
+		doc := benchSheet(n)
+		docs := [2][]byte{doc, bytes.Replace(doc, []byte(fmt.Sprintf(`"id":"r%d",`, n/2)),
+			[]byte(fmt.Sprintf(`"id":"r%d","times":2,`, n/2)), 1)}
+		b.Run(fmt.Sprintf("changes/rows=%d", n), func(b *testing.B) {
+			s := new(Session)
+			seq := 0
+			b.SetBytes(int64(len(doc)))
+			for b.Loop() {
+				seq++
+				if _, err := s.ChangesJSON(docs[seq%2], seq-1); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+		b.Run(fmt.Sprintf("analysis/rows=%d", n), func(b *testing.B) {
+			s := new(Session)
+			seq := 0
+			for b.Loop() {
+				b.StopTimer()
+				seq++
+				if _, err := s.ChangesJSON(docs[seq%2], seq-1); err != nil {
+					b.Fatal(err)
+				}
+				b.StartTimer()
+				if _, err := s.AnalysisJSON(); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

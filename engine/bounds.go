@@ -17,16 +17,15 @@ type bound struct{ low, high float64 }
 
 // readBounds parses the worksheet's bounds into ranges by reactant key; wrong entries are field errors and
 // fall back to the default range.
-func (ev *evaluation) readBounds() (def bound, byKey map[string]bound) {
-	def = bound{1e-6, 1e-2}
-	byKey = map[string]bound{}
+func (ev *evaluation) readBounds() {
+	ev.bounds = boundTable{def: bound{1e-6, 1e-2}, byKey: map[string]bound{}}
 	b := ev.ws.Bounds
 	if b == nil {
-		return def, byKey
+		return
 	}
 	if b.Default != nil {
 		if r, ok := ev.parseBound("bounds.default", b.Default); ok {
-			def = r
+			ev.bounds.def = r
 		}
 	}
 	for _, name := range sortedKeys(b.Compounds) {
@@ -42,10 +41,23 @@ func (ev *evaluation) readBounds() (def bound, byKey map[string]bound) {
 			continue
 		}
 		if rng, ok := ev.parseBound(path, b.Compounds[name]); ok {
-			byKey[r.key] = rng
+			ev.bounds.byKey[r.key] = rng
 		}
 	}
-	return def, byKey
+}
+
+// boundTable holds the worksheet's bounds: a default range and ranges by reactant key.
+type boundTable struct {
+	def   bound
+	byKey map[string]bound
+}
+
+// boundOf is the range the max-min driving force may choose the reactant's concentration from.
+func (ev *evaluation) boundOf(r *reactant) bound {
+	if b, ok := ev.bounds.byKey[r.key]; ok {
+		return b
+	}
+	return ev.bounds.def
 }
 
 func (ev *evaluation) parseBound(path string, pair []string) (bound, bool) {

@@ -27,7 +27,12 @@ func (r *Result) AppendJSON(dst []byte) []byte {
 	}
 	dst = slices.Grow(dst, sizeGuessBase+sizeGuessRow*len(r.Rows)+sizeGuessCompound*len(r.Compounds))
 	dst = append(dst, `{"rows":`...)
-	dst = appendJSONSlice(dst, r.Rows, (*RowResult).appendJSON)
+	dst = r.appendRows(dst)
+	return r.appendAfterRows(dst, true)
+}
+
+// appendAfterRows writes the members that follow "rows" and closes the document; withMDF includes "mdf".
+func (r *Result) appendAfterRows(dst []byte, withMDF bool) []byte {
 	dst = append(dst, `,"total":`...)
 	dst = r.Total.appendJSON(dst)
 	dst = append(dst, `,"compounds":`...)
@@ -42,13 +47,30 @@ func (r *Result) AppendJSON(dst []byte) []byte {
 		dst = append(dst, `,"errors":`...)
 		dst = appendJSONSlice(dst, r.Errors, (*FieldError).appendJSON)
 	}
-	dst = append(dst, `,"mdf":`...)
-	if r.MDF == nil {
-		dst = append(dst, "null"...)
-	} else {
-		dst = r.MDF.appendJSON(dst)
+	if withMDF {
+		dst = append(dst, `,"mdf":`...)
+		if r.MDF == nil {
+			dst = append(dst, "null"...)
+		} else {
+			dst = r.MDF.appendJSON(dst)
+		}
 	}
 	return append(dst, '}')
+}
+
+// appendRows writes the rows, from the encodings made during evaluation where there are any.
+func (r *Result) appendRows(dst []byte) []byte {
+	if r.rowJSON == nil || len(r.rowJSON) != len(r.Rows) {
+		return appendJSONSlice(dst, r.Rows, (*RowResult).appendJSON)
+	}
+	dst = append(dst, '[')
+	for i, enc := range r.rowJSON {
+		if i > 0 {
+			dst = append(dst, ',')
+		}
+		dst = append(dst, enc...)
+	}
+	return append(dst, ']')
 }
 
 // The room AppendJSON makes beforehand, in bytes: a little more than the golden and benchmark worksheets

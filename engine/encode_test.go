@@ -317,6 +317,9 @@ func TestEncoderKnowsEveryField(t *testing.T) {
 		got[typ.Name()] = []string{}
 		for i := range typ.NumField() {
 			f := typ.Field(i)
+			if !f.IsExported() {
+				continue // not part of the document (Result.rowJSON: the rows' encodings, checked by the tests above)
+			}
 			got[typ.Name()] = append(got[typ.Name()], fmt.Sprintf("%s %s %s", f.Name, f.Type, f.Tag.Get("json")))
 			walk(f.Type)
 		}

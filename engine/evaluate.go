@@ -2,6 +2,7 @@ package engine
 
 import (
 	"fmt"
+	"maps"
 	"math"
 	"slices"
 	"strings"
@@ -32,6 +33,7 @@ type evaluation struct {
 	comps       map[string]*compartment
 	defaultComp string
 	values      valueTable
+	bounds      boundTable
 	conc        map[string]concentration // by reactant key
 	defc        concentration
 	res         *Result
@@ -39,6 +41,8 @@ type evaluation struct {
 	context     string         // everything in the worksheet that a row's result depends on, but the rows
 	used        []stoich       // the reactants the row being computed names
 	named       []*compound    // the compounds the row being computed names, H+ included
+	prior       []*memoRow     // the rows of a Session's previous evaluation, under the same context
+	done        []*memoRow     // the rows computed or remembered, in order
 }
 
 type concentration struct {
@@ -54,12 +58,18 @@ func Evaluate(ws *Worksheet, unknown []string) *Result {
 }
 
 func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Result {
-	res := &Result{Rows: make([]RowResult, 0, len(ws.Rows)), Compounds: []CompoundUse{}, Warnings: []Warning{}}
+	ev := newEvaluation(lib, ws, unknown)
+	ev.analyse(ev.evaluateRows())
+	return ev.res
+}
+
+// newEvaluation reads everything in the worksheet but its rows: conditions, compartments, compounds,
+// values, concentrations and bounds.
+func newEvaluation(lib *compounds.Library, ws *Worksheet, unknown []string) *evaluation {
+	res := &Result{Rows: make([]RowResult, 0, len(ws.Rows)), rowJSON: make([][]byte, 0, len(ws.Rows)),
+		Compounds: []CompoundUse{}, Warnings: []Warning{}}
 	ev := &evaluation{ws: ws, res: res, uses: map[string]int{}}
-	for _, f := range unknown {
-		ev.warn(Warning{Code: "unknown-field", Path: f,
-			Message: fmt.Sprintf("field %q is not part of the worksheet format and is ignored", f)})
-	}
+	ev.warnUnknown(unknown)
 	cond, warns, errs := readConditions(ws.Conditions)
 	ev.cond, ev.condOK = cond, errs == nil
 	res.Warnings = append(res.Warnings, warns...)
@@ -73,24 +83,72 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 	ev.band = ev.readBand()
 	ev.values = buildValues(ws, ev.cat.key, &res.Errors)
 	ev.readConcentrations()
-	ev.checkRowIDs()
+	ev.readBounds()
 	ev.context = contextKey(ws)
+	res.Conditions = conditionsUsed(cond, ev.band)
+	return ev
+}
 
+func (ev *evaluation) warnUnknown(fields []string) {
+	for _, f := range fields {
+		ev.warn(Warning{Code: "unknown-field", Path: f,
+			Message: fmt.Sprintf("field %q is not part of the worksheet format and is ignored", f)})
+	}
+}
+
+// setup is an evaluation as newEvaluation leaves it, kept by a Session to evaluate the next version of the
+// worksheet without reading its context again while the context stays the same.
+type setup struct {
+	ev       evaluation
+	warnings []Warning            // the context's warnings, without those about unknown fields
+	errors   []FieldError         // the context's errors
+	named    map[string]*compound // the catalog's compounds before any row named one
+}
+
+func (ev *evaluation) setup(unknown int) *setup {
+	return &setup{ev: *ev, warnings: slices.Clone(ev.res.Warnings[unknown:]), errors: slices.Clone(ev.res.Errors),
+		named: maps.Clone(ev.cat.compounds)}
+}
+
+// evaluation starts the evaluation of ws, whose context must be the setup's, as newEvaluation would.
+func (s *setup) evaluation(ws *Worksheet, unknown []string) *evaluation {
+	ev := new(evaluation)
+	*ev = s.ev
+	ev.ws = ws
+	ev.res = &Result{Rows: make([]RowResult, 0, len(ws.Rows)), rowJSON: make([][]byte, 0, len(ws.Rows)),
+		Compounds: []CompoundUse{}, Warnings: []Warning{}, Conditions: s.ev.res.Conditions}
+	ev.uses = map[string]int{}
+	ev.warnUnknown(unknown)
+	ev.res.Warnings = append(ev.res.Warnings, s.warnings...)
+	ev.res.Errors = slices.Clone(s.errors)
+	cat := *s.ev.cat
+	cat.compounds = maps.Clone(s.named)
+	ev.cat = &cat
+	return ev
+}
+
+// evaluateRows computes every row and the totals: everything of the result but the max-min driving
+// force. It returns the rows that can enter the analysis.
+func (ev *evaluation) evaluateRows() []computedRow {
+	ws, res := ev.ws, ev.res
+	ev.checkRowIDs()
 	var net netReaction
 	total := Total{DG0: new(float64), DG: new(float64)}
 	var incomplete []string
 	var computed []computedRow
+	ev.done = make([]*memoRow, 0, len(ws.Rows))
 	for i := range ws.Rows {
-		row, nu := ev.row(&ws.Rows[i])
+		m := ev.row(i, &ws.Rows[i])
+		ev.done = append(ev.done, m)
+		row, nu := m.result, m.nu
 		res.Rows = append(res.Rows, row)
-		if nu != nil {
-			computed = append(computed, computedRow{index: i, nu: nu})
-		}
+		res.rowJSON = append(res.rowJSON, m.json)
 		if nu == nil {
 			incomplete = append(incomplete, row.ID)
 			total.DG0, total.DG = nil, nil
 			continue
 		}
+		computed = append(computed, computedRow{index: i, nu: nu})
 		net.add(nu, row.Times)
 		total.Cost.add(*row.Cost)
 		if total.DG0 != nil {
@@ -115,13 +173,11 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 		ev.warn(Warning{Code: "total-out-of-range", Path: "rows", Message: "the total cost is out of range and is not shown"})
 	}
 	res.Total = total
-	ev.analyse(computed)
 	res.Values = ev.values.used(ev.cat)
-	res.Conditions = conditionsUsed(cond, ev.band)
 	if len(res.Errors) == 0 {
 		res.Errors = nil
 	}
-	return res
+	return computed
 }
 
 func deref(p *float64) float64 {
@@ -219,14 +275,13 @@ func (ev *evaluation) concentrationOf(r *reactant) (concentration, bool) {
 }
 
 func (ev *evaluation) checkRowIDs() {
-	seen := map[string]bool{}
+	seen := make(map[string]bool, len(ev.ws.Rows))
 	for i, row := range ev.ws.Rows {
-		path := fmt.Sprintf("rows[%d].id", i)
 		switch {
 		case row.ID == "":
-			ev.fieldError(path, "a row needs an id")
+			ev.fieldError(fmt.Sprintf("rows[%d].id", i), "a row needs an id")
 		case seen[row.ID]:
-			ev.fieldError(path, fmt.Sprintf("row id %q is used twice", row.ID))
+			ev.fieldError(fmt.Sprintf("rows[%d].id", i), fmt.Sprintf("row id %q is used twice", row.ID))
 		}
 		seen[row.ID] = true
 	}

@@ -44,7 +44,10 @@ func (n *netReaction) add(nu []stoich, times float64) {
 			c.inexact = true
 			continue
 		}
-		p, ok := s.rat.Mul(t)
+		p, ok := s.rat, true
+		if t != (equation.Rat{Num: 1, Den: 1}) {
+			p, ok = s.rat.Mul(t)
+		}
 		if ok {
 			p, ok = c.exact.Add(p)
 		}

@@ -10,6 +10,10 @@ type Result struct {
 	Warnings   []Warning            `json:"warnings"`
 	Errors     []FieldError         `json:"errors,omitempty"`
 	MDF        *MDF                 `json:"mdf"`
+
+	// rowJSON holds each row's encoding, made when the row was computed; AppendJSON writes these rather
+	// than encoding Rows again. A Result is not to be changed once Evaluate has returned it.
+	rowJSON [][]byte
 }
 
 // Status of a row at the entered concentrations.

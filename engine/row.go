@@ -19,25 +19,36 @@ import (
 //	ΔrG'  = ΔrG'° + RT ln Q,   K' = exp(−ΔrG'°/RT)
 //
 // It returns the row's result and its stoichiometry; the stoichiometry is nil when the row cannot enter
-// the totals. Rows evaluated before under the same worksheet context are taken from rowMemo.
-func (ev *evaluation) row(in *Row) (RowResult, []stoich) {
+// the totals, and the row's result encoded as in the result document. Rows evaluated before under the same
+// worksheet context are taken from the previous evaluation of a Session when they stand at the same
+// place, and otherwise from rowMemo.
+func (ev *evaluation) row(i int, in *Row) *memoRow {
 	key := rowKeyOf(in)
-	m, ok := rows.get(ev.context, key)
-	if !ok {
+	var m *memoRow
+	if i < len(ev.prior) && ev.prior[i].key == key {
+		m = ev.prior[i]
+	} else if m = rows.get(ev.context, key); m == nil {
 		ev.used, ev.named = nil, nil
+		m = &memoRow{key: key}
 		m.result, m.nu = ev.computeRow(in)
+		if m.nu != nil {
+			ev.flux(&m.result, m.nu)
+		}
+		m.json = m.result.appendJSON(nil)
 		m.used, m.named = ev.used, ev.named
 		rows.put(ev.context, key, m)
 	}
 	for _, c := range m.named {
-		ev.cat.compounds[c.key] = c
+		if _, ok := ev.cat.compounds[c.key]; !ok {
+			ev.cat.compounds[c.key] = c
+		}
 	}
 	for _, s := range m.used {
 		if s.coef != 0 && !s.r.isProton() {
 			ev.use(s.r, s.term, in.ID)
 		}
 	}
-	return m.result, m.nu
+	return m
 }
 
 func (ev *evaluation) computeRow(in *Row) (RowResult, []stoich) {

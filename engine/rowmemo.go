@@ -18,7 +18,7 @@ const rowMemoSize = 8192
 type rowMemo struct {
 	mu      sync.Mutex
 	context string
-	m       map[rowKey]memoRow
+	m       map[rowKey]*memoRow
 }
 
 // rowKey is what a row's result depends on besides the context (its note does not enter the result).
@@ -40,27 +40,28 @@ func rowKeyOf(r *Row) rowKey {
 }
 
 type memoRow struct {
+	key    rowKey
 	result RowResult
+	json   []byte      // result as AppendJSON writes it; never changed once made
 	nu     []stoich    // nil when the row cannot enter the totals
 	used   []stoich    // the reactants the row names, replayed into the result's list of compounds
 	named  []*compound // the compounds it names, H+ included, which decide the values listed
 }
 
-func (c *rowMemo) get(context string, k rowKey) (memoRow, bool) {
+func (c *rowMemo) get(context string, k rowKey) *memoRow {
 	c.mu.Lock()
 	defer c.mu.Unlock()
 	if c.context != context {
-		return memoRow{}, false
+		return nil
 	}
-	m, ok := c.m[k]
-	return m, ok
+	return c.m[k]
 }
 
-func (c *rowMemo) put(context string, k rowKey, m memoRow) {
+func (c *rowMemo) put(context string, k rowKey, m *memoRow) {
 	c.mu.Lock()
 	defer c.mu.Unlock()
 	if c.context != context || len(c.m) >= rowMemoSize {
-		c.context, c.m = context, map[rowKey]memoRow{}
+		c.context, c.m = context, map[rowKey]*memoRow{}
 	}
 	c.m[k] = m
 }

@@ -49,3 +49,30 @@ func TestRowMemo(t *testing.T) {
 		}
 	})
 }
+
+// TestRowEncodings: the result document writes each row from the encoding made when the row was computed;
+// it must equal what json.Marshal writes for the row as it stands in the Result, for every worksheet,
+// remembered or not.
+func TestRowEncodings(t *testing.T) {
+	eachWorksheet(t, []string{"../testdata/worksheets/*.json", "../pathways/*.json"}, func(t *testing.T, name string, doc []byte) {
+		ws, unknown, err := Decode(doc)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, pass := range []string{"computed", "remembered"} {
+			res := Evaluate(ws, unknown)
+			if len(res.rowJSON) != len(res.Rows) {
+				t.Fatalf("%s: %d encodings for %d rows", pass, len(res.rowJSON), len(res.Rows))
+			}
+			for i := range res.Rows {
+				want, err := json.Marshal(&res.Rows[i])
+				if err != nil {
+					t.Fatal(err)
+				}
+				if !bytes.Equal(res.rowJSON[i], want) {
+					t.Errorf("%s: row %d: encoding\n%s\nwant\n%s", pass, i, res.rowJSON[i], want)
+				}
+			}
+		}
+	})
+}

@@ -2,6 +2,7 @@ package engine
 
 import (
 	"gibbsheet/engine/equation"
+	"slices"
 )
 
 // use records that a row uses a compound, for the result's list of compounds and their concentrations.
@@ -13,8 +14,14 @@ func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
 		}
 		return
 	}
+	if ev.res.Compounds == nil || len(ev.res.Compounds) == cap(ev.res.Compounds) {
+		// Room for a pathway's compounds at once: growing a slice of these structs is dear in WebAssembly.
+		ev.res.Compounds = slices.Grow(ev.res.Compounds, 32+len(ev.res.Compounds))
+	}
+	rows := make([]string, 1, 8)
+	rows[0] = rowID
 	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name + tagOf(t.Compartment), Name: r.name,
-		Compartment: r.comp.id, Approximation: r.approx, Rows: []string{rowID}})
+		Compartment: r.comp.id, Approximation: r.approx, Rows: rows})
 	u := &ev.res.Compounds[len(ev.res.Compounds)-1]
 	if r.lib != nil {
 		u.Library = r.lib.ID

@@ -16,12 +16,15 @@ import (
 // version is set at link time by the page assembler (-X main.version=...).
 var version = "dev"
 
+// session holds the page's own worksheet as it is edited live: changes(worksheet, base) and analysis().
+var session engine.Session
+
 func main() {
 	js.Global().Set("gibbsheet", api())
 	select {} // keep the functions alive for the life of the page
 }
 
-// api builds the object {evaluate, compounds, csv, version} that the page calls.
+// api builds the object {evaluate, changes, analysis, compounds, csv, version} that the page calls.
 func api() js.Value {
 	evaluate := guard(func(args []js.Value) (any, error) {
 		if len(args) != 1 || args[0].Type() != js.TypeString {
@@ -33,11 +36,33 @@ func api() js.Value {
 		}
 		return string(out), nil
 	})
+	changes := guard(func(args []js.Value) (any, error) {
+		if len(args) != 2 || args[0].Type() != js.TypeString || args[1].Type() != js.TypeNumber {
+			return nil, fmt.Errorf("gibbsheet.changes needs the worksheet document as JSON text and the number of the answer the page holds (0 for none)")
+		}
+		out, err := session.ChangesJSON([]byte(args[0].String()), args[1].Int())
+		if err != nil {
+			return nil, err
+		}
+		return string(out), nil
+	})
+	analysis := guard(func(args []js.Value) (any, error) {
+		if len(args) != 0 {
+			return nil, fmt.Errorf("gibbsheet.analysis takes no argument: it analyses the worksheet of the latest changes")
+		}
+		out, err := session.AnalysisJSON()
+		if err != nil {
+			return nil, err
+		}
+		return string(out), nil
+	})
 	compounds := guard(func([]js.Value) (any, error) {
 		return string(engine.CompoundsJSON()), nil
 	})
 	obj := js.Global().Get("Object").New()
 	obj.Set("evaluate", throwing(evaluate))
+	obj.Set("changes", throwing(changes))
+	obj.Set("analysis", throwing(analysis))
 	obj.Set("compounds", throwing(compounds))
 	obj.Set("csv", throwing(guard(table)))
 	obj.Set("version", version)

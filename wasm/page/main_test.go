@@ -56,6 +56,48 @@ func TestEvaluateThrows(t *testing.T) {
 	}
 }
 
+// TestChanges: the page's live calls. A second call with the first answer's number gives the unchanged
+// row by number; analysis gives the MDF of the latest answer; wrong arguments throw.
+func TestChanges(t *testing.T) {
+	doc := `{"format":"gibbsheet-worksheet/1","rows":[{"id":"r1","equation":"ATP + H2O = ADP + Pi"},{"id":"r2","equation":"glucose + ATP = glucose 6-phosphate + ADP"}]}`
+	if _, msg := call(t, "analysis"); !strings.Contains(msg, "evaluate one first") {
+		t.Errorf("analysis before any changes threw %q", msg)
+	}
+	first, msg := call(t, "changes", doc, 0)
+	if msg != "" {
+		t.Fatalf("changes threw %q", msg)
+	}
+	var c struct {
+		Seq  int               `json:"seq"`
+		Base int               `json:"base"`
+		Rows []json.RawMessage `json:"rows"`
+	}
+	if err := json.Unmarshal([]byte(first), &c); err != nil || c.Seq == 0 || c.Base != 0 || len(c.Rows) != 2 {
+		t.Fatalf("first changes %.80s (%v)", first, err)
+	}
+	edited := strings.Replace(doc, `"equation":"ATP + H2O = ADP + Pi"`, `"equation":"ATP + H2O = AMP + PPi"`, 1)
+	second, _ := call(t, "changes", edited, c.Seq)
+	json.Unmarshal([]byte(second), &c)
+	if len(c.Rows) != 2 || string(c.Rows[1]) != "1" || c.Rows[0][0] != '{' {
+		t.Errorf("second changes %.120s: want row 0 written out and row 1 given as 1", second)
+	}
+	a, msg := call(t, "analysis")
+	var an struct {
+		Seq int `json:"seq"`
+		MDF *struct {
+			DrivingForce float64 `json:"drivingForce"`
+		} `json:"mdf"`
+	}
+	if err := json.Unmarshal([]byte(a), &an); err != nil || msg != "" || an.Seq != c.Seq || an.MDF == nil {
+		t.Errorf("analysis %q threw %q (%v)", a, msg, err)
+	}
+	for _, args := range [][]any{{doc}, {doc, "1"}, {42, 0}} {
+		if _, msg := call(t, "changes", args...); !strings.Contains(msg, "needs the worksheet") {
+			t.Errorf("changes(%v) threw %q", args, msg)
+		}
+	}
+}
+
 func TestCompounds(t *testing.T) {
 	out, msg := call(t, "compounds")
 	if msg != "" {

@@ -1,0 +1,145 @@
+package engine
+
+import (
+	"bytes"
+	"slices"
+	"strconv"
+	"sync"
+
+	"gibbsheet/engine/compounds"
+)
+
+// Session evaluates the successive versions of one worksheet as someone edits it, the way the page does on
+// every keystroke, and answers with what changed since its previous answer, which the caller keeps.
+//
+// ChangesJSON is EvaluateJSON without the max-min driving force, and with every row whose result is, byte
+// for byte, a row of the previous answer written as that row's index in it: typing in one row of a
+// hundred sends one row back. AnalysisJSON then gives the max-min driving force of the latest answer, so
+// a caller can show the rows at once and the analysis, which weighs the whole pathway, a moment later.
+// Merging the two gives exactly EvaluateJSON's document (TestSessionMatchesEvaluate).
+//
+// A Session is safe for concurrent use, though its answers only make sense to a caller that sees them
+// in order.
+type Session struct {
+	mu       sync.Mutex
+	seq      int      // number of the latest answer; 0 before the first
+	rows     [][]byte // the latest answer's rows, encoded
+	ev       *evaluation // the latest answer's
+	setup    *setup      // the latest context's, read once for the answers that share it
+	computed []computedRow
+
+	analysed struct { // the latest analysis, kept while its worksheet's context and rows stay the same
+		context string
+		keys    []rowKey
+		body    []byte // `"mdf":…,"warnings":[…]}`
+	}
+}
+
+// ChangesJSON reads a worksheet document and returns the changes document:
+//
+//	{"seq": n, "base": b, "rows": [...], "total": ..., "compounds": ..., "values": ..., "conditions": ...,
+//	 "warnings": [...], "errors": [...]}
+//
+// with the fields of the result document, less "mdf". A row given as a number i is row i of the answer
+// numbered b, which is base when base is the session's latest answer and 0 (no row given by number)
+// otherwise. Errors are EvaluateJSON's; after one the session's latest answer stays what it was.
+func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error) {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	defer recoverEngine(&out, &err, s.reset)
+	ws, unknown, err := Decode(worksheet)
+	if err != nil {
+		return nil, err
+	}
+	var ev *evaluation
+	if context := contextKey(ws); s.setup != nil && s.setup.ev.context == context {
+		ev = s.setup.evaluation(ws, unknown)
+		ev.prior = s.ev.done
+	} else {
+		ev = newEvaluation(compounds.Builtin(), ws, unknown)
+		s.setup = ev.setup(len(unknown))
+	}
+	computed := ev.evaluateRows()
+	res := ev.res
+	if base != s.seq || base == 0 {
+		base = 0
+	}
+	var prev map[string]int // the previous rows by encoding, made when first needed
+	dst := make([]byte, 0, sizeGuessBase+64*len(res.Rows))
+	dst = append(dst, `{"seq":`...)
+	dst = strconv.AppendInt(dst, int64(s.seq+1), 10)
+	dst = append(dst, `,"base":`...)
+	dst = strconv.AppendInt(dst, int64(base), 10)
+	dst = append(dst, `,"rows":[`...)
+	for i, enc := range res.rowJSON {
+		if i > 0 {
+			dst = append(dst, ',')
+		}
+		if base != 0 {
+			if i < len(s.rows) && bytes.Equal(s.rows[i], enc) {
+				dst = strconv.AppendInt(dst, int64(i), 10)
+				continue
+			}
+			if prev == nil {
+				prev = make(map[string]int, len(s.rows))
+				for j := len(s.rows) - 1; j >= 0; j-- {
+					prev[string(s.rows[j])] = j
+				}
+			}
+			if j, ok := prev[string(enc)]; ok {
+				dst = strconv.AppendInt(dst, int64(j), 10)
+				continue
+			}
+		}
+		dst = append(dst, enc...)
+	}
+	dst = append(dst, ']')
+	dst = res.appendAfterRows(dst, false)
+
+	s.seq++
+	ev.prior = nil
+	s.rows, s.ev, s.computed = res.rowJSON, ev, computed
+	return dst, nil
+}
+
+// AnalysisJSON returns the max-min driving force of the latest answer and the warnings that come with it:
+// {"seq": n, "mdf": ..., "warnings": [...]}, n being the number of that answer. It fails before the first
+// answer.
+func (s *Session) AnalysisJSON() (out []byte, err error) {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	defer recoverEngine(&out, &err, s.reset)
+	if s.ev == nil {
+		return nil, errNoAnswer
+	}
+	a := &s.analysed
+	keys := make([]rowKey, len(s.ev.done))
+	for i, m := range s.ev.done {
+		keys[i] = m.key
+	}
+	if a.body == nil || a.context != s.ev.context || !slices.Equal(a.keys, keys) {
+		ev := s.ev
+		n := len(ev.res.Warnings)
+		ev.analyse(s.computed)
+		body := append([]byte(`"mdf":`), "null"...)
+		if ev.res.MDF != nil {
+			body = ev.res.MDF.appendJSON(body[:len(`"mdf":`)])
+		}
+		body = append(body, `,"warnings":`...)
+		body = appendJSONSlice(body, ev.res.Warnings[n:], (*Warning).appendJSON)
+		body = append(body, '}')
+		ev.res.Warnings, ev.res.MDF = ev.res.Warnings[:n], nil
+		a.context, a.keys, a.body = ev.context, keys, body
+	}
+	dst := append(make([]byte, 0, 16+len(a.body)), `{"seq":`...)
+	dst = strconv.AppendInt(dst, int64(s.seq), 10)
+	dst = append(dst, ',')
+	return append(dst, a.body...), nil
+}
+
+// reset forgets the latest answer, after a failure of the engine left it in doubt.
+func (s *Session) reset() {
+	s.seq++
+	s.rows, s.ev, s.computed, s.setup = nil, nil, nil, nil
+	s.analysed.body = nil
+}
