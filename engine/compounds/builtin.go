@@ -1,28 +1,8 @@
 package compounds
 
-import (
-	_ "embed"
-	"encoding/json"
-	"fmt"
-	"sync"
-)
+//go:generate go run ./internal/gencompounds
 
-//go:embed data/compounds.json
-var builtinJSON []byte
-
-// Builtin returns the built-in library, parsed and validated once from the embedded data
-// (data/compounds.json). It panics if the embedded data are invalid, a programmer mistake that the
-// package's tests catch.
-func Builtin() *Library { return builtin() }
-
-var builtin = sync.OnceValue(func() *Library {
-	var cs []Compound
-	if err := json.Unmarshal(builtinJSON, &cs); err != nil {
-		panic(fmt.Sprintf("compounds: embedded data: %v", err))
-	}
-	l, err := NewLibrary(cs)
-	if err != nil {
-		panic(fmt.Sprintf("compounds: embedded data: %v", err))
-	}
-	return l
-})
+// Builtin returns the built-in library. It is compiled in (builtin_data.go, generated from
+// data/compounds.json by go generate), so the first call costs nothing; the package's tests check that
+// it is what NewLibrary builds from the data, which validates them.
+func Builtin() *Library { return &builtinLibrary }

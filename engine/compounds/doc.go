@@ -1,6 +1,7 @@
 // Package compounds is Gibbsheet's built-in library of biochemical reactants: species data in
 // Alberty's form (ΔfG°, ΔfH°, charge, N_H, N_Mg at 298.15 K and I = 0) with their sources, molecular
-// formulas, and lookup of the names biochemists type. The data are embedded and parsed once.
+// formulas, and lookup of the names biochemists type. The data are compiled in, generated from
+// data/compounds.json by go generate.
 //
 // Conventions, as in Alberty's tables: ΔfG° = ΔfH° = 0 for H+, for oxidized NAD and FAD and for CoA,
 // whose moiety also carries no charge, so only reactions that conserve these groups are meaningful.

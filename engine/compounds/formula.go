@@ -1,11 +1,12 @@
 package compounds
 
 import (
-	"fmt"
 	"sort"
 	"strconv"
 	"strings"
 	"unicode/utf8"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // Formula maps element symbols to atom counts (all counts > 0).
@@ -35,7 +36,7 @@ type FormulaError struct {
 
 func (e *FormulaError) Error() string {
 	col := utf8.RuneCountInString(e.Formula[:e.Pos]) + 1
-	return fmt.Sprintf("formula %q, column %d: %s", e.Formula, col, e.Msg)
+	return say.Sprintf("formula %q, column %d: %s", e.Formula, col, e.Msg)
 }
 
 // ParseFormula parses a molecular formula.
@@ -56,7 +57,7 @@ func ParseFormula(s string) (Formula, error) {
 			return nil, err
 		}
 		if f[sym] += n; f[sym] > maxCount {
-			return nil, &FormulaError{s, pos, fmt.Sprintf("too many %s atoms", sym)}
+			return nil, &FormulaError{s, pos, say.Sprintf("too many %s atoms", sym)}
 		}
 		pos = next
 	}
@@ -68,7 +69,7 @@ func parsePart(s string, pos int) (sym string, n, next int, err error) {
 	c := s[pos]
 	if c < 'A' || c > 'Z' {
 		r, _ := utf8.DecodeRuneInString(s[pos:])
-		return "", 0, 0, &FormulaError{s, pos, fmt.Sprintf("expected an element symbol (capital letter), found %q", r)}
+		return "", 0, 0, &FormulaError{s, pos, say.Sprintf("expected an element symbol (capital letter), found %q", r)}
 	}
 	end := pos + 1
 	for end < len(s) && s[end] >= 'a' && s[end] <= 'z' {
@@ -76,7 +77,7 @@ func parsePart(s string, pos int) (sym string, n, next int, err error) {
 	}
 	sym = s[pos:end]
 	if !elements[sym] {
-		return "", 0, 0, &FormulaError{s, pos, fmt.Sprintf("unknown element symbol %q", sym)}
+		return "", 0, 0, &FormulaError{s, pos, say.Sprintf("unknown element symbol %q", sym)}
 	}
 	n, next, err = parseCount(s, end)
 	return sym, n, next, err

@@ -2,9 +2,11 @@ package compounds
 
 import (
 	"errors"
-	"fmt"
+	"sort"
 	"strings"
 
+	"gibbsheet/engine/compounds/internal/names"
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 )
 
@@ -22,13 +24,15 @@ type Compound struct {
 // Library is a validated set of compounds with a name index.
 type Library struct {
 	all   []*Compound
-	index map[string]*Compound // normalized ID, name or synonym → compound
-	names []nameEntry          // every name for Suggest, IDs first
+	names []nameEntry // every name, by compound in library order, each compound's ID first (for Suggest)
+	index []int       // positions in names sorted by normalized name (for Lookup)
 }
 
+// nameEntry is one name of a compound.
 type nameEntry struct {
-	text, norm string
+	text, norm string // as written and normalized (see Lookup)
 	isID       bool
+	c          *Compound
 }
 
 // NewLibrary validates cs and builds a library of copies of them, in the given order. Every compound
@@ -36,31 +40,31 @@ type nameEntry struct {
 // describe one of its Mg-free species (same N_H); IDs, names and synonyms must be unique across the
 // library after normalization (see Lookup). All problems are reported together.
 func NewLibrary(cs []Compound) (*Library, error) {
-	l := &Library{index: map[string]*Compound{}}
-	var errs []error
-	owner := map[string]int{} // normalized name → index of the compound that has it
-	for i := range cs {
-		c := cs[i]
+	l := &Library{}
+	all := make([]Compound, len(cs))
+	lists := make([][]string, len(cs))
+	for i, c := range cs {
 		c.Synonyms = append([]string(nil), c.Synonyms...)
 		c.Species = append([]thermo.Species(nil), c.Species...)
-		for _, msg := range check(&c) {
-			errs = append(errs, fmt.Errorf("compound %d %q: %s", i+1, c.ID, msg))
+		all[i] = c
+		l.all = append(l.all, &all[i])
+		lists[i] = append([]string{c.ID, c.Name}, c.Synonyms...)
+	}
+	entries, clashes := names.Collect(lists)
+	for _, e := range entries {
+		l.names = append(l.names, nameEntry{e.Text, e.Norm, e.IsID, l.all[e.Owner]})
+	}
+	l.index = names.Index(entries)
+	var errs []error
+	for i, c := range l.all {
+		for _, msg := range check(c) {
+			errs = append(errs, say.Errorf("compound %d %q: %s", i+1, c.ID, msg))
 		}
-		l.all = append(l.all, &c)
-		for k, n := range append([]string{c.ID, c.Name}, c.Synonyms...) {
-			key := normalize(n)
-			if key == "" {
-				continue
+		for _, d := range clashes {
+			if d.Owner == i {
+				errs = append(errs, say.Errorf("compound %d %q: name %q already used by compound %d %q",
+					i+1, c.ID, d.Text, d.Other+1, cs[d.Other].ID))
 			}
-			if o, dup := owner[key]; dup {
-				if o != i {
-					errs = append(errs, fmt.Errorf("compound %d %q: name %q already used by compound %d %q", i+1, c.ID, n, o+1, cs[o].ID))
-				}
-				continue
-			}
-			owner[key] = i
-			l.index[key] = &c
-			l.names = append(l.names, nameEntry{n, key, k == 0})
 		}
 	}
 	if len(errs) > 0 {
@@ -99,7 +103,7 @@ func check(c *Compound) []string {
 		found = found || (s.NMg == 0 && s.NH == f["H"])
 	}
 	if !found && len(c.Species) > 0 {
-		msgs = append(msgs, fmt.Sprintf("formula %s has %d H but no Mg-free species has nH = %d", c.Formula, f["H"], f["H"]))
+		msgs = append(msgs, say.Sprintf("formula %s has %d H but no Mg-free species has nH = %d", c.Formula, f["H"], f["H"]))
 	}
 	return msgs
 }
@@ -108,14 +112,12 @@ func check(c *Compound) []string {
 func (l *Library) All() []*Compound { return append([]*Compound(nil), l.all...) }
 
 // Lookup returns the compound with the given ID, name or synonym, or nil. Matching ignores case,
-// leading and trailing space, and runs of inner space, and treats the primes ' ′ ’ alike.
-func (l *Library) Lookup(name string) *Compound { return l.index[normalize(name)] }
-
-// primes maps the prime variants people type to '.
-var primes = strings.NewReplacer("′", "'", "’", "'", "‘", "'")
-
-// normalize folds case, trims and collapses spaces, and maps the prime variants to '.
-func normalize(s string) string {
-	s = strings.Join(strings.Fields(s), " ")
-	return strings.ToLower(primes.Replace(s))
+// leading and trailing space, and runs of inner space, and treats the primes ' ′ ’ ‘ alike.
+func (l *Library) Lookup(name string) *Compound {
+	key := names.Normalize(name)
+	i := sort.Search(len(l.index), func(i int) bool { return l.names[l.index[i]].norm >= key })
+	if i < len(l.index) && l.names[l.index[i]].norm == key {
+		return l.names[l.index[i]].c
+	}
+	return nil
 }

@@ -3,6 +3,8 @@ package compounds
 import (
 	"sort"
 	"unicode/utf8"
+
+	"gibbsheet/engine/compounds/internal/names"
 )
 
 // Suggest returns up to n known names nearest to name by Damerau–Levenshtein distance (optimal string
@@ -13,7 +15,7 @@ func (l *Library) Suggest(name string, n int) []string {
 	if n <= 0 {
 		return nil
 	}
-	q := []rune(normalize(name))
+	q := []rune(names.Normalize(name))
 	limit := max(2, len(q)/3)
 	type cand struct {
 		text string
@@ -30,7 +32,7 @@ func (l *Library) Suggest(name string, n int) []string {
 		if d > limit {
 			continue
 		}
-		c := l.index[e.norm]
+		c := e.c
 		b, ok := best[c]
 		if !ok || d < b.d || (d == b.d && e.isID && !b.isID) {
 			best[c] = cand{e.text, d, e.isID, c}

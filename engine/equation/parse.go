@@ -1,10 +1,11 @@
 package equation
 
 import (
-	"fmt"
 	"strings"
 	"unicode"
 	"unicode/utf8"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // parser holds the text and the errors found so far.
@@ -40,7 +41,7 @@ func (p *parser) parseEquation() *Equation {
 	for _, a := range arrows {
 		if !a.known {
 			p.errs = append(p.errs, &Error{Pos: a.pos, End: a.end,
-				Msg:     fmt.Sprintf(`%q is not an arrow: write one of "=", "<=>", "⇌", "->" or "→"`, a.text),
+				Msg:     say.Sprintf(`%q is not an arrow: write one of "=", "<=>", "⇌", "->" or "→"`, a.text),
 				Suggest: append([]string(nil), knownArrows...)})
 		}
 	}
@@ -157,12 +158,12 @@ func (p *parser) checkRepeats(terms []Term, ends []Pos, label string) {
 		counts[s.first]++
 		times := "twice"
 		if n := counts[s.first] + 1; n > 2 {
-			times = fmt.Sprintf("%d times", n)
+			times = say.Sprintf("%d times", n)
 		}
 		first := terms[s.first]
 		combined := Term{Coef: s.sum, Name: first.Name, Compartment: first.Compartment}.String()
 		p.errs = append(p.errs, &Error{Pos: t.Pos, End: ends[i],
-			Msg: fmt.Sprintf("%q appears %s %s: write it once as %q",
+			Msg: say.Sprintf("%q appears %s %s: write it once as %q",
 				first.compound(), times, label, combined),
 			Suggest: []string{combined}})
 	}

@@ -1,10 +1,11 @@
 package equation
 
 import (
-	"fmt"
 	"sort"
 	"strings"
 	"unicode/utf8"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // Pos is a byte offset into the equation text. Offsets are turned into
@@ -39,7 +40,7 @@ type Error struct {
 // "offset 4: empty term between "+" signs". Callers that know the source text
 // use Column to print a column instead.
 func (e *Error) Error() string {
-	return fmt.Sprintf("offset %d: %s", e.Pos, e.Msg)
+	return say.Sprintf("offset %d: %s", int(e.Pos), e.Msg)
 }
 
 // ErrorList is a list of *Errors, the error type returned by Parse.
@@ -47,7 +48,7 @@ type ErrorList []*Error
 
 // add appends an error for the span [pos, end).
 func (l *ErrorList) add(pos, end Pos, format string, args ...any) {
-	*l = append(*l, &Error{Pos: pos, End: end, Msg: fmt.Sprintf(format, args...)})
+	*l = append(*l, &Error{Pos: pos, End: end, Msg: say.Sprintf(format, args...)})
 }
 
 // Len, Less and Swap implement sort.Interface: by Pos, then End, then Msg.

@@ -2,12 +2,13 @@ package equation
 
 import (
 	"errors"
-	"fmt"
 	"math"
 	"math/bits"
 	"strconv"
 	"strings"
 	"unicode/utf8"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // MaxDigits is the largest number of significant digits ParseRat accepts in
@@ -62,7 +63,7 @@ func (r Rat) norm() Rat {
 	}
 	n, ok := NewRat(r.Num, r.Den)
 	if !ok {
-		panic(fmt.Sprintf("equation: Rat %d/%d cannot be represented", r.Num, r.Den))
+		panic(say.Sprintf("equation: Rat %d/%d cannot be represented", r.Num, r.Den))
 	}
 	return n
 }
@@ -230,7 +231,7 @@ func parseRat(s string) (Rat, string) {
 	for i := 0; i < len(t); {
 		c, size := utf8.DecodeRuneInString(t[i:])
 		if !isDigit(c) && c != '.' && c != '/' {
-			return Rat{}, fmt.Sprintf("unexpected character %q", c)
+			return Rat{}, say.Sprintf("unexpected character %q", c)
 		}
 		i += size
 	}
@@ -252,7 +253,7 @@ func parseRat(s string) (Rat, string) {
 			den, ok = parseDigits(b)
 		}
 		if !ok {
-			return Rat{}, fmt.Sprintf("too many digits (at most %d)", MaxDigits)
+			return Rat{}, say.Sprintf("too many digits (at most %d)", MaxDigits)
 		}
 		if den == 0 {
 			return Rat{}, "the denominator is zero"
@@ -265,7 +266,7 @@ func parseRat(s string) (Rat, string) {
 			return Rat{}, `write digits on both sides of the decimal point, as in "0.5"`
 		}
 		if len(strings.TrimLeft(a, "0"))+len(b) > MaxDigits {
-			return Rat{}, fmt.Sprintf("too many digits (at most %d)", MaxDigits)
+			return Rat{}, say.Sprintf("too many digits (at most %d)", MaxDigits)
 		}
 		whole, _ := parseDigits(a)
 		frac, _ := parseDigits(b)
@@ -273,7 +274,7 @@ func parseRat(s string) (Rat, string) {
 		num = whole*den + frac
 	default:
 		if num, ok = parseDigits(t); !ok {
-			return Rat{}, fmt.Sprintf("too many digits (at most %d)", MaxDigits)
+			return Rat{}, say.Sprintf("too many digits (at most %d)", MaxDigits)
 		}
 		den = 1
 	}

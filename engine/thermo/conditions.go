@@ -1,8 +1,9 @@
 package thermo
 
 import (
-	"fmt"
 	"math"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // Physical constants (CODATA 2018) and Alberty's reference values.
@@ -64,13 +65,13 @@ func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 func (c Conditions) Check() error {
 	switch {
 	case !finite(c.Temperature) || c.Temperature <= 0:
-		return &ConditionError{"temperature", fmt.Sprintf("%v K is not a temperature above absolute zero", c.Temperature)}
+		return &ConditionError{"temperature", say.Sprintf("%v K is not a temperature above absolute zero", c.Temperature)}
 	case !finite(c.IonicStrength) || c.IonicStrength < 0:
-		return &ConditionError{"ionicStrength", fmt.Sprintf("%v M: ionic strength must be a finite number ≥ 0", c.IonicStrength)}
+		return &ConditionError{"ionicStrength", say.Sprintf("%v M: ionic strength must be a finite number ≥ 0", c.IonicStrength)}
 	case !finite(c.PH) || c.PH < 0 || c.PH > 14:
-		return &ConditionError{"pH", fmt.Sprintf("%v is outside 0 to 14", c.PH)}
+		return &ConditionError{"pH", say.Sprintf("%v is outside 0 to 14", c.PH)}
 	case math.IsNaN(c.PMg) || c.PMg < 0:
-		return &ConditionError{"pMg", fmt.Sprintf("%v: pMg must be ≥ 0 (or infinite to ignore magnesium)", c.PMg)}
+		return &ConditionError{"pMg", say.Sprintf("%v: pMg must be ≥ 0 (or infinite to ignore magnesium)", c.PMg)}
 	}
 	return nil
 }
