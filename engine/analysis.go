@@ -2,10 +2,11 @@ package engine
 
 import (
 	"errors"
-	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/mdf"
 )
 
@@ -126,18 +127,26 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 		}
 	}
 	if len(out.LeftOut) > 0 {
-		ev.warn(Warning{Code: "mdf-left-out", Path: "rows", Message: fmt.Sprintf(
+		ev.warn(Warning{Code: "mdf-left-out", Path: "rows", Message: say.Sprintf(
 			"the max-min driving force leaves out the row(s) without ΔrG'°: %s", strings.Join(out.LeftOut, ", "))})
 	}
 	if len(rows) == 0 {
 		return nil
 	}
-	p := &mdf.Problem{RT: ev.rt}
+	p := &mdf.Problem{RT: ev.rt, Reactions: make([]mdf.Reaction, 0, len(rows))}
 	index := map[string]int{}
 	var compounds []*stoich
-	var used []computedRow
+	used := make([]computedRow, 0, len(rows))
+	terms := 0
+	for _, cr := range rows {
+		terms += len(cr.nu)
+	}
+	// One backing array for every reaction's compounds and coefficients: a pathway's worth of small slices
+	// is most of the set-up's time otherwise.
+	allCompound, allCoef := make([]int, 0, terms), make([]float64, 0, terms)
 	for _, cr := range rows {
 		row := ev.res.Rows[cr.index]
+		start := len(allCompound)
 		reaction := mdf.Reaction{DG0: *row.DG0}
 		for k := range cr.nu {
 			s := &cr.nu[k]
@@ -152,9 +161,9 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 				lo, hi := ev.boundOf(s.r).ln()
 				p.Lower, p.Upper = append(p.Lower, lo), append(p.Upper, hi)
 			}
-			reaction.Compound = append(reaction.Compound, i)
-			reaction.Coef = append(reaction.Coef, s.coef)
+			allCompound, allCoef = append(allCompound, i), append(allCoef, s.coef)
 		}
+		reaction.Compound, reaction.Coef = allCompound[start:len(allCompound):len(allCompound)], allCoef[start:len(allCoef):len(allCoef)]
 		p.Reactions = append(p.Reactions, reaction)
 		used = append(used, cr)
 	}
@@ -168,6 +177,8 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 		return nil
 	}
 	out.DrivingForce = sol.MDF
+	out.Rows = make([]MDFRow, 0, len(used))
+	out.Concentrations = make([]OptimalConc, 0, len(compounds))
 	for j, cr := range used {
 		id := ev.res.Rows[cr.index].ID
 		out.Rows = append(out.Rows, MDFRow{ID: id, DrivingForce: sol.DrivingForce[j], Shadow: sol.Shadow[j],
@@ -196,25 +207,37 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 }
 
 func mdfMessage(m *MDF) string {
-	var bounds []string
-	for _, b := range m.Binding {
-		if b.Side == "fixed" {
-			bounds = append(bounds, fmt.Sprintf("%s fixed at %s", b.Compound, formatMolar(b.Bound)))
-			continue
-		}
-		bounds = append(bounds, fmt.Sprintf("%s at its %s bound %s", b.Compound, b.Side, formatMolar(b.Bound)))
-	}
-	limits := ""
-	if len(bounds) > 0 {
-		limits = "; the bounds that limit it: " + strings.Join(bounds, ", ")
-	}
+	var b strings.Builder
 	steps := strings.Join(m.Bottlenecks, ", ")
 	if m.DrivingForce < 0 {
-		return fmt.Sprintf("no concentrations within the bounds let every step run forward: at best the "+
-			"bottleneck step(s) %s stay uphill by %.1f kJ/mol%s", steps, -m.DrivingForce, limits)
+		b.WriteString("no concentrations within the bounds let every step run forward: at best the bottleneck step(s) ")
+		b.WriteString(steps)
+		b.WriteString(" stay uphill by ")
+		b.WriteString(strconv.FormatFloat(-m.DrivingForce, 'f', 1, 64))
+		b.WriteString(" kJ/mol")
+	} else {
+		b.WriteString("every step can run forward within the bounds, with at least ")
+		b.WriteString(strconv.FormatFloat(m.DrivingForce, 'f', 1, 64))
+		b.WriteString(" kJ/mol of driving force; the bottleneck step(s): ")
+		b.WriteString(steps)
 	}
-	return fmt.Sprintf("every step can run forward within the bounds, with at least %.1f kJ/mol of driving "+
-		"force; the bottleneck step(s): %s%s", m.DrivingForce, steps, limits)
+	for i, bb := range m.Binding {
+		if i == 0 {
+			b.WriteString("; the bounds that limit it: ")
+		} else {
+			b.WriteString(", ")
+		}
+		b.WriteString(bb.Compound)
+		if bb.Side == "fixed" {
+			b.WriteString(" fixed at ")
+		} else {
+			b.WriteString(" at its ")
+			b.WriteString(bb.Side)
+			b.WriteString(" bound ")
+		}
+		b.WriteString(formatMolar(bb.Bound))
+	}
+	return b.String()
 }
 
 // formatMolar writes a concentration with the unit that keeps the number between 1 and 1000.
@@ -224,8 +247,8 @@ func formatMolar(c float64) string {
 		factor float64
 	}{{"M", 1}, {"mM", 1e-3}, {"µM", 1e-6}, {"nM", 1e-9}} {
 		if c >= u.factor {
-			return fmt.Sprintf("%.3g %s", c/u.factor, u.name)
+			return strconv.FormatFloat(c/u.factor, 'g', 3, 64) + " " + u.name
 		}
 	}
-	return fmt.Sprintf("%.3g pM", c/1e-12)
+	return strconv.FormatFloat(c/1e-12, 'g', 3, 64) + " pM"
 }

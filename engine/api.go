@@ -1,12 +1,10 @@
 package engine
 
 import (
-	"encoding/json"
 	"errors"
-	"fmt"
-	"sync"
 
 	"gibbsheet/engine/compounds"
+	"gibbsheet/engine/internal/say"
 )
 
 // EvaluateJSON reads a worksheet document and returns its result document. It returns an error only when
@@ -32,7 +30,7 @@ func recoverEngine(out *[]byte, err *error, cleanup func()) {
 	if cleanup != nil {
 		cleanup()
 	}
-	*out, *err = nil, fmt.Errorf("internal error in the engine (please report it with the worksheet): %v", p)
+	*out, *err = nil, say.Errorf("internal error in the engine (please report it with the worksheet): %v", p)
 }
 
 var errNoAnswer = errors.New("there is no worksheet to analyse yet: evaluate one first")
@@ -47,19 +45,10 @@ type LibraryEntry struct {
 	Source      string   `json:"source"`
 }
 
-var compoundsJSON = sync.OnceValue(func() []byte {
-	all := compounds.Builtin().All()
-	list := make([]LibraryEntry, 0, len(all))
-	for _, c := range all {
-		list = append(list, LibraryEntry{ID: c.ID, Name: c.Name, Synonyms: c.Synonyms, Formula: c.Formula,
-			Approximate: c.Approximation != "", Source: c.Source})
-	}
-	b, err := json.Marshal(list)
-	if err != nil {
-		panic(err) // the library is static data; a failure here is a programming error
-	}
-	return b
-})
+// compoundsJSON is the library as LibraryEntry values in JSON, written when the library is generated
+// (compounds.LibraryJSON), so that the page gets it without work; TestCompoundsJSON checks it against the
+// library.
+var compoundsJSON = []byte(compounds.LibraryJSON)
 
 // CompoundsJSON returns the built-in library as a JSON array of LibraryEntry, for completion in the page.
-func CompoundsJSON() []byte { return compoundsJSON() }
+func CompoundsJSON() []byte { return compoundsJSON }

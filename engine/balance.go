@@ -1,11 +1,11 @@
 package engine
 
 import (
-	"fmt"
 	"slices"
 	"strings"
 
 	"gibbsheet/engine/compounds"
+	"gibbsheet/engine/internal/say"
 )
 
 // balanceTolerance is the largest element imbalance treated as zero; fractional coefficients (1/2 O2) sum
@@ -53,7 +53,7 @@ func (ev *evaluation) balance(nu []stoich, out *RowResult) {
 		}
 	}
 	if len(unknown) > 0 {
-		out.Warnings = append(out.Warnings, Warning{Code: "balance-unchecked", Message: fmt.Sprintf(
+		out.Warnings = append(out.Warnings, Warning{Code: "balance-unchecked", Message: say.Sprintf(
 			"element balance not checked: no formula for %s", strings.Join(unknown, ", "))})
 		return
 	}
@@ -61,9 +61,9 @@ func (ev *evaluation) balance(nu []stoich, out *RowResult) {
 	for _, d := range diff {
 		switch {
 		case d.n > balanceTolerance:
-			parts = append(parts, fmt.Sprintf("%s: %s more on the right", d.element, formatCount(d.n)))
+			parts = append(parts, say.Sprintf("%s: %s more on the right", d.element, formatCount(d.n)))
 		case d.n < -balanceTolerance:
-			parts = append(parts, fmt.Sprintf("%s: %s more on the left", d.element, formatCount(-d.n)))
+			parts = append(parts, say.Sprintf("%s: %s more on the left", d.element, formatCount(-d.n)))
 		}
 	}
 	if len(parts) > 0 {
@@ -72,4 +72,4 @@ func (ev *evaluation) balance(nu []stoich, out *RowResult) {
 	}
 }
 
-func formatCount(x float64) string { return strings.TrimSuffix(fmt.Sprintf("%.4g", x), ".0") }
+func formatCount(x float64) string { return strings.TrimSuffix(say.Sprintf("%.4g", x), ".0") }

@@ -1,8 +1,9 @@
 package engine
 
 import (
-	"fmt"
 	"math"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // Default concentration bounds of the max-min driving force, mol/L: 1 µM to 10 mM, the physiological range
@@ -62,20 +63,20 @@ func (ev *evaluation) boundOf(r *reactant) bound {
 
 func (ev *evaluation) parseBound(path string, pair []string) (bound, bool) {
 	if len(pair) != 2 {
-		ev.fieldError(path, fmt.Sprintf(`a bound is a pair ["low", "high"], e.g. ["1 uM", "10 mM"]; found %d value(s)`, len(pair)))
+		ev.fieldError(path, say.Sprintf(`a bound is a pair ["low", "high"], e.g. ["1 uM", "10 mM"]; found %d value(s)`, len(pair)))
 		return bound{}, false
 	}
 	var r bound
 	for i, dst := range []*float64{&r.low, &r.high} {
 		v, err := ParseConcentration(pair[i])
 		if err != nil {
-			ev.fieldError(fmt.Sprintf("%s[%d]", path, i), err.Error())
+			ev.fieldError(say.Sprintf("%s[%d]", path, i), err.Error())
 			return bound{}, false
 		}
 		*dst = v
 	}
 	if r.low > r.high {
-		ev.fieldError(path, fmt.Sprintf("the low bound %s is above the high bound %s", pair[0], pair[1]))
+		ev.fieldError(path, say.Sprintf("the low bound %s is above the high bound %s", pair[0], pair[1]))
 		return bound{}, false
 	}
 	return r, true

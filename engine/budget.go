@@ -1,9 +1,10 @@
 package engine
 
 import (
-	"fmt"
 	"maps"
 	"strings"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // defaultValues are the energy values of the currency compounds, keyed by library id. They are common
@@ -50,7 +51,7 @@ func buildValues(ws *Worksheet, resolve func(string) (string, bool), errs *[]Fie
 		path := "values." + name
 		key, ok := resolve(name)
 		if !ok {
-			*errs = append(*errs, FieldError{Path: path, Message: fmt.Sprintf("no compound %q for this value", name)})
+			*errs = append(*errs, FieldError{Path: path, Message: say.Sprintf("no compound %q for this value", name)})
 			continue
 		}
 		v := ws.Values[name]
@@ -74,7 +75,7 @@ func buildValues(ws *Worksheet, resolve func(string) (string, bool), errs *[]Fie
 				*errs = append(*errs, FieldError{Path: path + "." + f.field, Message: "protonsPerATP is set on H+ only"})
 			case !finite(*f.in) || f.field == "po" && *f.in < 0 || f.positive && *f.in <= 0:
 				*errs = append(*errs, FieldError{Path: path + "." + f.field,
-					Message: fmt.Sprintf("%s value %v is not usable: enter a finite number%s", f.field, *f.in,
+					Message: say.Sprintf("%s value %v is not usable: enter a finite number%s", f.field, *f.in,
 						map[bool]string{true: " greater than zero", false: ""}[f.positive || f.field == "po"])})
 			default:
 				*f.out = *f.in

@@ -1,10 +1,10 @@
 package engine
 
 import (
-	"fmt"
 	"slices"
 	"strings"
 
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 )
 
@@ -38,14 +38,14 @@ func (ev *evaluation) readCompartments() {
 	}
 	ev.comps = map[string]*compartment{}
 	for i, in := range ws.Compartments {
-		path := fmt.Sprintf("compartments[%d]", i)
+		path := say.Sprintf("compartments[%d]", i)
 		id := strings.TrimSpace(in.ID)
 		switch {
 		case id == "" || strings.ContainsAny(id, "[] +"):
-			ev.fieldError(path+".id", fmt.Sprintf("compartment id %q must be a short name without spaces or brackets, e.g. \"m\"", in.ID))
+			ev.fieldError(path+".id", say.Sprintf("compartment id %q must be a short name without spaces or brackets, e.g. \"m\"", in.ID))
 			continue
 		case ev.comps[id] != nil:
-			ev.fieldError(path+".id", fmt.Sprintf("compartment %q is defined twice", id))
+			ev.fieldError(path+".id", say.Sprintf("compartment %q is defined twice", id))
 			continue
 		}
 		c := &compartment{id: id, name: in.Name, cond: ev.cond, ok: ev.condOK}

@@ -2,9 +2,9 @@ package engine
 
 import (
 	"errors"
-	"fmt"
 	"math"
 
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 )
 
@@ -38,17 +38,17 @@ func readConditions(in *Conditions) (c thermo.Conditions, warnings []Warning, er
 	}
 	if c.IonicStrength > thermo.MaxIonicStrength {
 		warnings = append(warnings, Warning{Code: "ionic-strength", Path: "conditions.ionicStrength",
-			Message: fmt.Sprintf("ionic strength %g M is above %g M, where the extended Debye–Hückel "+
+			Message: say.Sprintf("ionic strength %g M is above %g M, where the extended Debye–Hückel "+
 				"equation stops being reliable", c.IonicStrength, thermo.MaxIonicStrength)})
 	}
 	if c.PH < thermo.MinReliablePH || c.PH > thermo.MaxReliablePH {
 		warnings = append(warnings, Warning{Code: "pH", Path: "conditions.pH",
-			Message: fmt.Sprintf("pH %g is outside %g–%g, where the tabulated species and pKs are "+
+			Message: say.Sprintf("pH %g is outside %g–%g, where the tabulated species and pKs are "+
 				"reliable; forms that matter there may be missing", c.PH, thermo.MinReliablePH, thermo.MaxReliablePH)})
 	}
 	if c.Temperature < thermo.MinReliableTemperature || c.Temperature > thermo.MaxReliableTemperature {
 		warnings = append(warnings, Warning{Code: "temperature", Path: "conditions.temperature",
-			Message: fmt.Sprintf("temperature %.2f K is outside %.2f–%.2f K: ΔfH° is taken as constant and "+
+			Message: say.Sprintf("temperature %.2f K is outside %.2f–%.2f K: ΔfH° is taken as constant and "+
 				"heat capacities are ignored, so results are rougher", c.Temperature,
 				thermo.MinReliableTemperature, thermo.MaxReliableTemperature)})
 	}

@@ -1,12 +1,13 @@
 package engine
 
 import (
-	"bytes"
-	"encoding/csv"
-	"fmt"
 	"math"
 	"strconv"
 	"strings"
+	"unicode"
+	"unicode/utf8"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // TableHeader is the first line of the results table written by ResultsTable: one column per value of a
@@ -40,10 +41,6 @@ func ResultsTable(worksheet []byte, sep rune) ([]byte, error) {
 		return nil, err
 	}
 	res := Evaluate(ws, unknown)
-	var buf bytes.Buffer
-	w := csv.NewWriter(&buf)
-	w.Comma = sep
-	w.UseCRLF = sep == ','
 	lines := [][]string{TableHeader}
 	for _, r := range res.Rows {
 		line := []string{
@@ -66,10 +63,72 @@ func ResultsTable(worksheet []byte, sep rune) ([]byte, error) {
 		tableNumber(&t.Cost.Phosphate), tableNumber(&t.Cost.Reducing), tableNumber(&t.Cost.Total),
 		tableText(joinWarnings(res.Warnings)), tableText(strings.Join(docErrs, "; ")),
 	})
-	if err := w.WriteAll(lines); err != nil {
-		panic(fmt.Sprintf("engine: ResultsTable with separator %q: %v", sep, err)) // a caller's mistake
+	var out []byte
+	for _, line := range lines {
+		out = appendCSVLine(out, line, sep, sep == ',')
 	}
-	return buf.Bytes(), nil
+	return out, nil
+}
+
+// appendCSVLine writes one line of fields as encoding/csv's Writer does with Comma sep and UseCRLF crlf:
+// a field is quoted when it holds the separator, a quote, CR or LF, starts with a space, or is `\.`;
+// quotes are doubled. The engine writes its own so that the WebAssembly module need not carry
+// encoding/csv and package fmt behind it. sep must be ASCII and not a quote, CR or LF (a caller's
+// mistake: it panics).
+func appendCSVLine(dst []byte, fields []string, sep rune, crlf bool) []byte {
+	if sep <= 0 || sep >= utf8.RuneSelf || sep == '"' || sep == '\r' || sep == '\n' {
+		panic(say.Sprintf("engine: ResultsTable with separator %q: not a separator a table can use", sep))
+	}
+	for n, field := range fields {
+		if n > 0 {
+			dst = append(dst, byte(sep))
+		}
+		if !csvNeedsQuotes(field, byte(sep)) {
+			dst = append(dst, field...)
+			continue
+		}
+		dst = append(dst, '"')
+		for len(field) > 0 {
+			i := strings.IndexAny(field, "\"\r\n")
+			if i < 0 {
+				i = len(field)
+			}
+			dst, field = append(dst, field[:i]...), field[i:]
+			if len(field) == 0 {
+				break
+			}
+			switch field[0] {
+			case '"':
+				dst = append(dst, `""`...)
+			case '\r':
+				if !crlf {
+					dst = append(dst, '\r')
+				}
+			case '\n':
+				if crlf {
+					dst = append(dst, '\r')
+				}
+				dst = append(dst, '\n')
+			}
+			field = field[1:]
+		}
+		dst = append(dst, '"')
+	}
+	if crlf {
+		dst = append(dst, '\r')
+	}
+	return append(dst, '\n')
+}
+
+func csvNeedsQuotes(field string, sep byte) bool {
+	if field == "" {
+		return false
+	}
+	if field == `\.` || strings.ContainsAny(field, "\"\r\n") || strings.IndexByte(field, sep) >= 0 {
+		return true
+	}
+	r, _ := utf8.DecodeRuneInString(field)
+	return unicode.IsSpace(r)
 }
 
 // tableNumber writes a value with tableDigits significant digits and no trailing zeros; nil is "".
@@ -99,7 +158,7 @@ func tablePower(x, log10 *float64) string {
 		m /= 10
 		e++
 	}
-	return strconv.FormatFloat(m, 'g', tableDigits, 64) + fmt.Sprintf("e%+d", int(e))
+	return strconv.FormatFloat(m, 'g', tableDigits, 64) + say.Sprintf("e%+d", int(e))
 }
 
 // tableText guards a text field against being read as a formula by a spreadsheet.
@@ -128,7 +187,7 @@ func joinRowErrors(r RowResult) string {
 	for i, e := range errs {
 		msgs[i] = e.Message
 		if e.Column > 0 {
-			msgs[i] = fmt.Sprintf("column %d: %s", e.Column, e.Message)
+			msgs[i] = say.Sprintf("column %d: %s", e.Column, e.Message)
 		}
 	}
 	return strings.Join(msgs, "; ")

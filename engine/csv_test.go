@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/csv"
 	"math"
+	"math/rand/v2"
 	"os"
 	"path/filepath"
 	"strconv"
@@ -133,6 +134,33 @@ func TestResultsCSVBadDocument(t *testing.T) {
 	for _, doc := range []string{`{`, `{"format":"gibbsheet-worksheet/2"}`, `[]`} {
 		if _, err := ResultsCSV([]byte(doc)); err == nil {
 			t.Errorf("ResultsCSV(%s): want an error", doc)
+		}
+	}
+}
+
+// TestCSVLineMatchesEncodingCSV: the engine's own CSV writer writes what encoding/csv's Writer writes
+// (the reference library), for seeded random fields full of separators, quotes, line ends and spaces.
+func TestCSVLineMatchesEncodingCSV(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 11))
+	pieces := []string{"a", "ΔrG'°", ",", ";", "\t", `"`, "\r", "\n", "\r\n", " ", "\u00a0", `\.`, "=1", ""}
+	for _, sep := range []rune{',', ';', '\t'} {
+		for _, crlf := range []bool{false, true} {
+			for range 2000 {
+				fields := make([]string, 1+rng.IntN(4))
+				for i := range fields {
+					for range rng.IntN(4) {
+						fields[i] += pieces[rng.IntN(len(pieces))]
+					}
+				}
+				var buf bytes.Buffer
+				w := csv.NewWriter(&buf)
+				w.Comma, w.UseCRLF = sep, crlf
+				w.Write(fields)
+				w.Flush()
+				if got := string(appendCSVLine(nil, fields, sep, crlf)); got != buf.String() {
+					t.Fatalf("sep %q crlf %v fields %q:\n got %q\nwant %q", sep, crlf, fields, got, buf.String())
+				}
+			}
 		}
 	}
 }

@@ -1,7 +1,6 @@
 package engine
 
 import (
-	"fmt"
 	"maps"
 	"math"
 	"slices"
@@ -10,6 +9,7 @@ import (
 
 	"gibbsheet/engine/compounds"
 	"gibbsheet/engine/equation"
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 )
 
@@ -92,7 +92,7 @@ func newEvaluation(lib *compounds.Library, ws *Worksheet, unknown []string) *eva
 func (ev *evaluation) warnUnknown(fields []string) {
 	for _, f := range fields {
 		ev.warn(Warning{Code: "unknown-field", Path: f,
-			Message: fmt.Sprintf("field %q is not part of the worksheet format and is ignored", f)})
+			Message: say.Sprintf("field %q is not part of the worksheet format and is ignored", f)})
 	}
 }
 
@@ -162,7 +162,7 @@ func (ev *evaluation) evaluateRows() []computedRow {
 	}
 	if len(incomplete) > 0 {
 		ev.warn(Warning{Code: "total-incomplete", Path: "rows",
-			Message: fmt.Sprintf("the totals leave out %d row(s) that could not be computed: %s",
+			Message: say.Sprintf("the totals leave out %d row(s) that could not be computed: %s",
 				len(incomplete), strings.Join(incomplete, ", "))})
 	}
 	total.Equation = net.String()
@@ -197,7 +197,7 @@ func (ev *evaluation) readBand() float64 {
 	band := ev.rt * math.Ln10 // Q within tenfold of K'
 	if b := ev.ws.NearEquilibrium; b != nil {
 		if !finite(*b) || *b < 0 {
-			ev.fieldError("nearEquilibrium", fmt.Sprintf("near-equilibrium band %v kJ/mol must be a finite number ≥ 0", *b))
+			ev.fieldError("nearEquilibrium", say.Sprintf("near-equilibrium band %v kJ/mol must be a finite number ≥ 0", *b))
 		} else {
 			band = *b
 		}
@@ -211,11 +211,11 @@ func (ev *evaluation) resolveName(written string) (*reactant, string) {
 	name, tag := splitTag(written)
 	c := ev.cat.resolve(name)
 	if c == nil {
-		return nil, fmt.Sprintf("no compound %q: check the name used in the equations", name)
+		return nil, say.Sprintf("no compound %q: check the name used in the equations", name)
 	}
 	comp := ev.compartmentOf(tag)
 	if comp == nil {
-		return nil, fmt.Sprintf("no compartment %q: the worksheet has %s", tag, ev.compartmentIDs())
+		return nil, say.Sprintf("no compartment %q: the worksheet has %s", tag, ev.compartmentIDs())
 	}
 	return ev.cat.reactant(c, comp), ""
 }
@@ -251,7 +251,7 @@ func (ev *evaluation) readConcentrations() {
 			continue
 		}
 		if prev, dup := given[r.key]; dup {
-			ev.fieldError(path, fmt.Sprintf("%q and %q name the same compound: keep one concentration", prev, name))
+			ev.fieldError(path, say.Sprintf("%q and %q name the same compound: keep one concentration", prev, name))
 			continue
 		}
 		given[r.key] = name
@@ -279,9 +279,9 @@ func (ev *evaluation) checkRowIDs() {
 	for i, row := range ev.ws.Rows {
 		switch {
 		case row.ID == "":
-			ev.fieldError(fmt.Sprintf("rows[%d].id", i), "a row needs an id")
+			ev.fieldError(say.Sprintf("rows[%d].id", i), "a row needs an id")
 		case seen[row.ID]:
-			ev.fieldError(fmt.Sprintf("rows[%d].id", i), fmt.Sprintf("row id %q is used twice", row.ID))
+			ev.fieldError(say.Sprintf("rows[%d].id", i), say.Sprintf("row id %q is used twice", row.ID))
 		}
 		seen[row.ID] = true
 	}

@@ -1,9 +1,10 @@
 package engine
 
 import (
-	"fmt"
 	"strconv"
 	"strings"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // concentrationUnits maps the units a user may type to their factor to mol/L. The micro prefix is accepted
@@ -25,7 +26,7 @@ const maxConcentration = 20.0
 func ParseConcentration(s string) (float64, error) {
 	text := strings.TrimSpace(s)
 	if text == "" {
-		return 0, fmt.Errorf(`empty concentration: write a number and a unit, e.g. "2 mM"`)
+		return 0, say.Errorf(`empty concentration: write a number and a unit, e.g. "2 mM"`)
 	}
 	split := strings.IndexFunc(text, func(r rune) bool {
 		return !(r >= '0' && r <= '9' || r == '.' || r == 'e' || r == 'E' || r == '+' || r == '-')
@@ -35,26 +36,26 @@ func ParseConcentration(s string) (float64, error) {
 		split--
 	}
 	if split < 0 {
-		return 0, fmt.Errorf("%q has no unit: write it with one, e.g. %q or %q", text, text+" mM", text+" µM")
+		return 0, say.Errorf("%q has no unit: write it with one, e.g. %q or %q", text, text+" mM", text+" µM")
 	}
 	number, unit := strings.TrimSpace(text[:split]), strings.TrimSpace(text[split:])
 	if number == "" {
-		return 0, fmt.Errorf("%q does not start with a number: write e.g. \"2 mM\"", text)
+		return 0, say.Errorf("%q does not start with a number: write e.g. \"2 mM\"", text)
 	}
 	v, err := strconv.ParseFloat(number, 64)
 	if err != nil {
-		return 0, fmt.Errorf("%q is not a number", number)
+		return 0, say.Errorf("%q is not a number", number)
 	}
 	factor, ok := concentrationUnits[unit]
 	if !ok {
-		return 0, fmt.Errorf("unknown unit %q: use M, mM, µM (or uM), nM or pM", unit)
+		return 0, say.Errorf("unknown unit %q: use M, mM, µM (or uM), nM or pM", unit)
 	}
 	c := v * factor
 	switch {
 	case !(c > 0):
-		return 0, fmt.Errorf("concentration %q must be greater than zero", text)
+		return 0, say.Errorf("concentration %q must be greater than zero", text)
 	case c > maxConcentration:
-		return 0, fmt.Errorf("concentration %q is above %g M, which no solute reaches", text, maxConcentration)
+		return 0, say.Errorf("concentration %q is above %g M, which no solute reaches", text, maxConcentration)
 	}
 	return c, nil
 }

@@ -1,13 +1,13 @@
 package engine
 
 import (
-	"fmt"
 	"math"
 	"slices"
 	"strings"
 	"sync"
 
 	"gibbsheet/engine/compounds"
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 )
 
@@ -75,13 +75,13 @@ func newCatalog(lib *compounds.Library, ws *Worksheet, ev *evaluation) *catalog 
 		compounds: map[string]*compound{}, reactants: map[reactantID]*reactant{}}
 	for i := range ws.Compounds {
 		c := &ws.Compounds[i]
-		path := fmt.Sprintf("compounds[%d]", i)
+		path := say.Sprintf("compounds[%d]", i)
 		if strings.TrimSpace(c.ID) == "" {
 			ev.fieldError(path+".id", "a compound needs an id: the name used in equations")
 			continue
 		}
 		if prev, dup := cat.own[normalName(c.ID)]; dup {
-			ev.fieldError(path+".id", fmt.Sprintf("compound id %q is defined twice (also as %q)", c.ID, prev.ID))
+			ev.fieldError(path+".id", say.Sprintf("compound id %q is defined twice (also as %q)", c.ID, prev.ID))
 			continue
 		}
 		if msg := checkOwnCompound(c); msg != "" {
@@ -89,7 +89,7 @@ func newCatalog(lib *compounds.Library, ws *Worksheet, ev *evaluation) *catalog 
 		}
 		if libc := lib.Lookup(c.ID); libc != nil {
 			ev.warn(Warning{Code: "own-shadows-library", Path: path + ".id",
-				Message: fmt.Sprintf("the worksheet's own compound %q is used in place of the library's %s", c.ID, libc.Name)})
+				Message: say.Sprintf("the worksheet's own compound %q is used in place of the library's %s", c.ID, libc.Name)})
 		}
 		cat.own[normalName(c.ID)] = c
 		if c.Name != "" {
@@ -104,19 +104,19 @@ func newCatalog(lib *compounds.Library, ws *Worksheet, ev *evaluation) *catalog 
 // checkOwnCompound returns what is wrong with a worksheet compound's data, or "".
 func checkOwnCompound(c *Compound) string {
 	if len(c.Species) > 0 && c.DfG0Prime != nil {
-		return fmt.Sprintf("compound %q has both species data and a ΔfG'°: keep one", c.ID)
+		return say.Sprintf("compound %q has both species data and a ΔfG'°: keep one", c.ID)
 	}
 	if c.DfG0Prime != nil && !finite(*c.DfG0Prime) {
-		return fmt.Sprintf("compound %q: ΔfG'° must be a finite number", c.ID)
+		return say.Sprintf("compound %q: ΔfG'° must be a finite number", c.ID)
 	}
 	for j, s := range c.Species {
 		if s.NH < 0 || s.NMg < 0 || !finite(s.DfG0) || s.DfH0 != nil && !finite(*s.DfH0) {
-			return fmt.Sprintf("compound %q, species %d: ΔfG° must be finite and nH, nMg not negative", c.ID, j+1)
+			return say.Sprintf("compound %q, species %d: ΔfG° must be finite and nH, nMg not negative", c.ID, j+1)
 		}
 	}
 	if c.Formula != "" {
 		if _, err := compounds.ParseFormula(c.Formula); err != nil {
-			return fmt.Sprintf("compound %q: formula %q: %v", c.ID, c.Formula, err)
+			return say.Sprintf("compound %q: formula %q: %v", c.ID, c.Formula, err)
 		}
 	}
 	return ""
@@ -183,7 +183,7 @@ func newLibCompound(c *compounds.Compound) *compound {
 		out.formula = heavyElements(f)
 	}
 	if len(c.Species) == 0 && c.ID != protonID {
-		out.noData = fmt.Sprintf("no species data for %s", c.Name)
+		out.noData = say.Sprintf("no species data for %s", c.Name)
 	}
 	return out
 }
@@ -198,10 +198,10 @@ func ownCompound(c *Compound) *compound {
 	}
 	switch {
 	case checkOwnCompound(c) != "":
-		out.noData = fmt.Sprintf("the data of compound %q are not usable (see the compound)", c.ID)
+		out.noData = say.Sprintf("the data of compound %q are not usable (see the compound)", c.ID)
 		out.species = nil
 	case c.DfG0Prime == nil && len(c.Species) == 0:
-		out.noData = fmt.Sprintf("%q has no thermodynamic data: enter the row's ΔrG'°, or give the compound species data or a ΔfG'°", c.ID)
+		out.noData = say.Sprintf("%q has no thermodynamic data: enter the row's ΔrG'°, or give the compound species data or a ΔfG'°", c.ID)
 	}
 	return out
 }
@@ -233,11 +233,11 @@ func (cat *catalog) reactant(c *compound, comp *compartment) *reactant {
 			r.meanZ = float64(*c.own.Charge)
 		}
 	case !comp.ok:
-		r.noData = fmt.Sprintf("the conditions of compartment %q are not usable", comp.id)
+		r.noData = say.Sprintf("the conditions of compartment %q are not usable", comp.id)
 	default:
 		g, err := thermo.ReactantDfG0Prime(c.species, comp.cond)
 		if err != nil || math.IsNaN(g) {
-			r.noData = fmt.Sprintf("cannot transform %s: %v", c.name, err)
+			r.noData = say.Sprintf("cannot transform %s: %v", c.name, err)
 			break
 		}
 		r.dfG0prime, r.hasData = g, true

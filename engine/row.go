@@ -1,11 +1,11 @@
 package engine
 
 import (
-	"fmt"
 	"math"
 	"slices"
 	"strings"
 
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 
 	"gibbsheet/engine/equation"
@@ -57,7 +57,7 @@ func (ev *evaluation) computeRow(in *Row) (RowResult, []stoich) {
 	if in.Times != nil {
 		out.Times = *in.Times
 		if !finite(*in.Times) || *in.Times <= 0 {
-			errs = append(errs, RowError{Message: fmt.Sprintf("multiplier %v must be a number greater than zero "+
+			errs = append(errs, RowError{Message: say.Sprintf("multiplier %v must be a number greater than zero "+
 				"(to run a step backwards, swap the sides of its equation)", *in.Times)})
 		}
 	}
@@ -101,7 +101,7 @@ func (ev *evaluation) computeRow(in *Row) (RowResult, []stoich) {
 			out.DG = &dg
 			out.Status = ev.status(dg)
 			if out.Status == StatusUphill {
-				out.Warnings = append(out.Warnings, Warning{Code: "uphill", Message: fmt.Sprintf(
+				out.Warnings = append(out.Warnings, Warning{Code: "uphill", Message: say.Sprintf(
 					"uphill: ΔrG' = %+.1f kJ/mol, so this step cannot run forward at these concentrations", dg)})
 			}
 		}
@@ -189,13 +189,13 @@ func (ev *evaluation) resolveTerms(in *Row, eq *equation.Equation, out *RowResul
 		comp := ev.compartmentOf(t.Compartment)
 		if comp == nil {
 			errs = append(errs, spanError(in.Equation, t.NameEnd, t.NameEnd+equation.Pos(len(t.Compartment)+2),
-				fmt.Sprintf("unknown compartment %q: the worksheet has %s", t.Compartment, ev.compartmentIDs()), nil))
+				say.Sprintf("unknown compartment %q: the worksheet has %s", t.Compartment, ev.compartmentIDs()), nil))
 			return
 		}
 		c := ev.cat.resolve(t.Name)
 		if c == nil {
 			sugg := ev.cat.suggestions(t.Name)
-			msg := fmt.Sprintf("unknown compound %q", t.Name)
+			msg := say.Sprintf("unknown compound %q", t.Name)
 			if len(sugg) > 0 {
 				msg += "; did you mean " + quoteList(sugg) + "?"
 			}
@@ -267,7 +267,7 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, atReference bool, out
 			once("approximate-data", "the data for "+r.name+" are approximate (the compound list says how)")
 		}
 		if r.own != nil && r.own.DfG0Prime != nil && in.DG0 == nil {
-			once("entered-formation-energy", fmt.Sprintf("ΔfG'° of %s is used as entered and does not follow "+
+			once("entered-formation-energy", say.Sprintf("ΔfG'° of %s is used as entered and does not follow "+
 				"changes of pH, I, pMg or temperature", r.name))
 		}
 		if !r.hasData {
@@ -284,9 +284,9 @@ func (ev *evaluation) standardEnergy(in *Row, nu []stoich, atReference bool, out
 	}
 	if in.DG0 != nil {
 		v := *in.DG0
-		msg := fmt.Sprintf("the entered ΔrG'° (%.2f kJ/mol) is used", v)
+		msg := say.Sprintf("the entered ΔrG'° (%.2f kJ/mol) is used", v)
 		if len(errs) == 0 {
-			msg += fmt.Sprintf(" in place of the computed %.2f kJ/mol", sum)
+			msg += say.Sprintf(" in place of the computed %.2f kJ/mol", sum)
 		}
 		out.Warnings = append(out.Warnings, Warning{Code: "entered-dG0", Message: msg})
 		return &v, nil
@@ -316,7 +316,7 @@ func (ev *evaluation) heatUnknown(in *Row, nu []stoich, out *RowResult) bool {
 	if len(missing) == 0 {
 		return false
 	}
-	out.Warnings = append(out.Warnings, Warning{Code: "no-enthalpy", Message: fmt.Sprintf(
+	out.Warnings = append(out.Warnings, Warning{Code: "no-enthalpy", Message: say.Sprintf(
 		"no ΔfH° is known for %s, so ΔrG'° is taken at 298.15 K (at this pH, I and pMg), as if it did not "+
 			"change with temperature; ΔrG' uses the worksheet's temperature", strings.Join(missing, ", "))})
 	return true
@@ -337,7 +337,7 @@ func (ev *evaluation) lnQ(src string, nu []stoich) (float64, []RowError) {
 		c, _ := ev.concentrationOf(s.r)
 		if c.err != "" {
 			errs = append(errs, spanError(src, s.term.NamePos, s.term.NameEnd,
-				fmt.Sprintf("the concentration of %s (%q) is not usable: %s", s.r.name, c.text, c.err), nil))
+				say.Sprintf("the concentration of %s (%q) is not usable: %s", s.r.name, c.text, c.err), nil))
 			continue
 		}
 		lnQ += s.coef * math.Log(c.molar)
@@ -361,7 +361,7 @@ func quoteList(names []string) string {
 		if i > 0 {
 			s += ", "
 		}
-		s += fmt.Sprintf("%q", n)
+		s += say.Sprintf("%q", n)
 	}
 	return s
 }

@@ -22,8 +22,8 @@ import (
 // in order.
 type Session struct {
 	mu       sync.Mutex
-	seq      int      // number of the latest answer; 0 before the first
-	rows     [][]byte // the latest answer's rows, encoded
+	seq      int         // number of the latest answer; 0 before the first
+	rows     [][]byte    // the latest answer's rows, encoded
 	ev       *evaluation // the latest answer's
 	setup    *setup      // the latest context's, read once for the answers that share it
 	computed []computedRow

@@ -6,6 +6,8 @@ import (
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
+
+	"gibbsheet/engine/compounds"
 )
 
 // sessionEdits are the edits a user makes in the page, applied in turn to a worksheet; each is followed by
@@ -158,5 +160,22 @@ func itoa(n int) string { b, _ := json.Marshal(n); return string(b) }
 func TestSessionAnalysisFirst(t *testing.T) {
 	if _, err := new(Session).AnalysisJSON(); err == nil {
 		t.Error("an empty session gave an analysis")
+	}
+}
+
+// TestCompoundsJSON: the library list the page receives, written when the library is generated, is the
+// library's compounds as LibraryEntry values, in library order, as json.Marshal writes them.
+func TestCompoundsJSON(t *testing.T) {
+	var want []LibraryEntry
+	for _, c := range compounds.Builtin().All() {
+		want = append(want, LibraryEntry{ID: c.ID, Name: c.Name, Synonyms: c.Synonyms, Formula: c.Formula,
+			Approximate: c.Approximation != "", Source: c.Source})
+	}
+	var got []LibraryEntry
+	if err := json.Unmarshal(CompoundsJSON(), &got); err != nil {
+		t.Fatal(err)
+	}
+	if diff := cmp.Diff(want, got); diff != "" {
+		t.Errorf("CompoundsJSON (-library +written):\n%s", diff)
 	}
 }

@@ -1,10 +1,10 @@
 package engine
 
 import (
-	"fmt"
 	"slices"
 	"strings"
 
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 )
 
@@ -71,7 +71,7 @@ func (ev *evaluation) transport(nu []stoich, atReference bool, out *RowResult) [
 	// Chemistry in one compartment with things carried across is fine; unpaired compounds in two or more
 	// compartments mean something crosses that the row does not say.
 	if len(unpairedIn) > 1 {
-		out.Warnings = append(out.Warnings, Warning{Code: "compartments-unpaired", Message: fmt.Sprintf(
+		out.Warnings = append(out.Warnings, Warning{Code: "compartments-unpaired", Message: say.Sprintf(
 			"this row spans compartments, but %s do(es) not cross with a partner on the other side: their "+
 				"electrical and pH work is not counted; write the transport as its own row", strings.Join(unpaired, ", "))})
 	}

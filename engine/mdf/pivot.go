@@ -1,8 +1,9 @@
 package mdf
 
 import (
-	"fmt"
 	"math"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // pivot moves entering variable q in direction dir (+1 or −1) until a basic
@@ -98,7 +99,7 @@ func (sx *simplex) pivot(q, dir int) error {
 		}
 	}
 	if leave == -2 {
-		return fmt.Errorf("%w: unbounded direction at pivot %d", ErrNumerical, sx.iters)
+		return say.Errorf("%w: unbounded direction at pivot %d", ErrNumerical, sx.iters)
 	}
 	if tBest <= degenerateTol {
 		if sx.degen++; sx.degen >= blandAfter {

@@ -2,8 +2,9 @@ package mdf
 
 import (
 	"errors"
-	"fmt"
 	"math"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // Reaction is one row of the MDF linear program.
@@ -64,7 +65,7 @@ type BoundsError struct {
 }
 
 func (e *BoundsError) Error() string {
-	return fmt.Sprintf("mdf: compound %d: bad ln bounds [%g, %g]: need finite lower ≤ upper",
+	return say.Sprintf("mdf: compound %d: bad ln bounds [%g, %g]: need finite lower ≤ upper",
 		e.Compound, e.Lower, e.Upper)
 }
 
@@ -78,7 +79,7 @@ type ReactionError struct {
 }
 
 func (e *ReactionError) Error() string {
-	return fmt.Sprintf("mdf: reaction %d: %s", e.Reaction, e.What)
+	return say.Sprintf("mdf: reaction %d: %s", e.Reaction, e.What)
 }
 
 // Unwrap returns ErrBadReaction.
@@ -90,11 +91,11 @@ func (e *ReactionError) Unwrap() error { return ErrBadReaction }
 func (p *Problem) validate() error {
 	n := len(p.Lower)
 	if len(p.Upper) != n {
-		panic(fmt.Sprintf("mdf: len(Lower) = %d, len(Upper) = %d", n, len(p.Upper)))
+		panic(say.Sprintf("mdf: len(Lower) = %d, len(Upper) = %d", n, len(p.Upper)))
 	}
 	var errs []error
 	if !(p.RT > 0) || math.IsInf(p.RT, 1) {
-		errs = append(errs, fmt.Errorf("%w (got %g)", ErrBadRT, p.RT))
+		errs = append(errs, say.Errorf("%w (got %g)", ErrBadRT, p.RT))
 	}
 	if len(p.Reactions) == 0 {
 		errs = append(errs, ErrNoReactions)
@@ -108,19 +109,19 @@ func (p *Problem) validate() error {
 	for j := range p.Reactions {
 		r := &p.Reactions[j]
 		if len(r.Compound) != len(r.Coef) {
-			panic(fmt.Sprintf("mdf: reaction %d: len(Compound) = %d, len(Coef) = %d",
+			panic(say.Sprintf("mdf: reaction %d: len(Compound) = %d, len(Coef) = %d",
 				j, len(r.Compound), len(r.Coef)))
 		}
 		if !finite(r.DG0) {
-			errs = append(errs, &ReactionError{Reaction: j, What: fmt.Sprintf("ΔrG'° is %g", r.DG0)})
+			errs = append(errs, &ReactionError{Reaction: j, What: say.Sprintf("ΔrG'° is %g", r.DG0)})
 		}
 		for k, c := range r.Compound {
 			if c < 0 || c >= n {
-				panic(fmt.Sprintf("mdf: reaction %d: compound index %d out of range [0, %d)", j, c, n))
+				panic(say.Sprintf("mdf: reaction %d: compound index %d out of range [0, %d)", j, c, n))
 			}
 			if !finite(r.Coef[k]) {
 				errs = append(errs, &ReactionError{Reaction: j,
-					What: fmt.Sprintf("coefficient of compound %d is %g", c, r.Coef[k])})
+					What: say.Sprintf("coefficient of compound %d is %g", c, r.Coef[k])})
 			}
 		}
 	}

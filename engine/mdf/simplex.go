@@ -1,8 +1,9 @@
 package mdf
 
 import (
-	"fmt"
 	"math"
+
+	"gibbsheet/engine/internal/say"
 )
 
 // Tolerances of the bounded-variable simplex method. Lengths are in units
@@ -141,14 +142,14 @@ func (sx *simplex) run() error {
 			return err
 		}
 	}
-	return fmt.Errorf("%w: no optimum after %d pivots", ErrNumerical, limit)
+	return say.Errorf("%w: no optimum after %d pivots", ErrNumerical, limit)
 }
 
 // step refactors the kernel, recomputes primal and dual values, and makes
 // one pivot; it reports done at optimality.
 func (sx *simplex) step() (done bool, err error) {
 	if sx.stale() && !sx.refactor() {
-		return false, fmt.Errorf("%w: singular basis kernel at pivot %d", ErrNumerical, sx.iters)
+		return false, say.Errorf("%w: singular basis kernel at pivot %d", ErrNumerical, sx.iters)
 	}
 	sx.primal()
 	sx.dual()
@@ -156,7 +157,7 @@ func (sx *simplex) step() (done bool, err error) {
 	if q < 0 && sx.updates > 0 {
 		// Accept optimality only on a fresh LU factorisation of the kernel.
 		if !sx.factor() {
-			return false, fmt.Errorf("%w: singular basis kernel at pivot %d", ErrNumerical, sx.iters)
+			return false, say.Errorf("%w: singular basis kernel at pivot %d", ErrNumerical, sx.iters)
 		}
 		sx.fresh = true
 		sx.primal()

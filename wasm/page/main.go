@@ -6,7 +6,7 @@
 package main
 
 import (
-	"fmt"
+	"errors"
 	"strings"
 	"syscall/js"
 
@@ -28,7 +28,7 @@ func main() {
 func api() js.Value {
 	evaluate := guard(func(args []js.Value) (any, error) {
 		if len(args) != 1 || args[0].Type() != js.TypeString {
-			return nil, fmt.Errorf("gibbsheet.evaluate needs one argument: the worksheet document as JSON text")
+			return nil, errors.New("gibbsheet.evaluate needs one argument: the worksheet document as JSON text")
 		}
 		out, err := engine.EvaluateJSON([]byte(args[0].String()))
 		if err != nil {
@@ -38,7 +38,7 @@ func api() js.Value {
 	})
 	changes := guard(func(args []js.Value) (any, error) {
 		if len(args) != 2 || args[0].Type() != js.TypeString || args[1].Type() != js.TypeNumber {
-			return nil, fmt.Errorf("gibbsheet.changes needs the worksheet document as JSON text and the number of the answer the page holds (0 for none)")
+			return nil, errors.New("gibbsheet.changes needs the worksheet document as JSON text and the number of the answer the page holds (0 for none)")
 		}
 		out, err := session.ChangesJSON([]byte(args[0].String()), args[1].Int())
 		if err != nil {
@@ -48,7 +48,7 @@ func api() js.Value {
 	})
 	analysis := guard(func(args []js.Value) (any, error) {
 		if len(args) != 0 {
-			return nil, fmt.Errorf("gibbsheet.analysis takes no argument: it analyses the worksheet of the latest changes")
+			return nil, errors.New("gibbsheet.analysis takes no argument: it analyses the worksheet of the latest changes")
 		}
 		out, err := session.AnalysisJSON()
 		if err != nil {
@@ -76,7 +76,7 @@ func guard(fn func(args []js.Value) (any, error)) js.Func {
 	return js.FuncOf(func(_ js.Value, args []js.Value) (ret any) {
 		defer func() {
 			if p := recover(); p != nil {
-				ret = errorCtor.New(fmt.Sprintf("internal error in the engine: %v", p))
+				ret = errorCtor.New("internal error in the engine: " + panicText(p))
 			}
 		}()
 		v, err := fn(args)
@@ -91,13 +91,13 @@ func guard(fn func(args []js.Value) (any, error)) js.Func {
 // (CSV) unless the separator is given ("\t" for the clipboard).
 func table(args []js.Value) (any, error) {
 	if len(args) < 1 || len(args) > 2 || args[0].Type() != js.TypeString {
-		return nil, fmt.Errorf("gibbsheet.csv needs the worksheet document as JSON text and, optionally, a separator")
+		return nil, errors.New("gibbsheet.csv needs the worksheet document as JSON text and, optionally, a separator")
 	}
 	sep := ','
 	if len(args) == 2 {
 		s := []rune(args[1].String())
 		if args[1].Type() != js.TypeString || len(s) != 1 || !strings.ContainsRune(",;\t", s[0]) {
-			return nil, fmt.Errorf("gibbsheet.csv: the separator must be \",\", \";\" or a tab")
+			return nil, errors.New(`gibbsheet.csv: the separator must be ",", ";" or a tab`)
 		}
 		sep = s[0]
 	}
@@ -119,4 +119,18 @@ func throwing(f js.Func) js.Value {
 	wrap := js.Global().Get("Function").New("f",
 		`return function (...args) { const r = f(...args); if (r instanceof Error) throw r; return r; };`)
 	return wrap.Invoke(f)
+}
+
+// panicText describes a recovered panic value without package fmt, which the engine leaves out of the
+// WebAssembly module to keep it small.
+func panicText(p any) string {
+	switch v := p.(type) {
+	case error:
+		return v.Error()
+	case string:
+		return v
+	case interface{ String() string }:
+		return v.String()
+	}
+	return "an unexpected failure"
 }
