@@ -1,9 +1,7 @@
 package engine
 
 import (
-	"encoding/json"
 	"math"
-	"reflect"
 	"slices"
 	"strconv"
 	"unicode/utf8"
@@ -19,7 +17,7 @@ import (
 // map keys sorted, numbers as encoding/json formats them and strings escaped as it escapes them (including
 // <, >, &, U+2028 and U+2029, and invalid UTF-8 as U+FFFD).
 //
-// AppendJSON panics with a *json.UnsupportedValueError, as json.Marshal would fail, if a number is NaN or
+// AppendJSON panics with an error that reads as json.Marshal's, where json.Marshal would fail, if a number is NaN or
 // infinite: the engine never puts one in a result, so one there is a programming error.
 func (r *Result) AppendJSON(dst []byte) []byte {
 	if r == nil {
@@ -386,12 +384,18 @@ func appendJSONFloatPtr(dst []byte, f *float64) []byte {
 	return appendJSONFloat(dst, *f)
 }
 
+// unsupportedValue is the error AppendJSON panics with on a number JSON cannot hold; its text is
+// json.Marshal's for the same value.
+type unsupportedValue string
+
+func (v unsupportedValue) Error() string { return "json: unsupported value: " + string(v) }
+
 // appendJSONFloat writes f as encoding/json does, the shortest decimal that reads back as f, like
 // JavaScript's Number.prototype.toString: exponent form below 1e-6 and from 1e21 on in magnitude, with
 // the exponent not padded ("1e-7", "1e+21"). It panics on NaN and infinities (see Result.AppendJSON).
 func appendJSONFloat(dst []byte, f float64) []byte {
 	if math.IsInf(f, 0) || math.IsNaN(f) {
-		panic(&json.UnsupportedValueError{Value: reflect.ValueOf(f), Str: strconv.FormatFloat(f, 'g', -1, 64)})
+		panic(unsupportedValue(strconv.FormatFloat(f, 'g', -1, 64)))
 	}
 	if i := int64(f); float64(i) == f && i > -exactIntegers && i < exactIntegers && (i != 0 || !math.Signbit(f)) {
 		return strconv.AppendInt(dst, i, 10) // the same digits, faster

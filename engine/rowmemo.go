@@ -1,7 +1,6 @@
 package engine
 
 import (
-	"encoding/json"
 	"sync"
 )
 
@@ -71,9 +70,5 @@ func (c *rowMemo) put(context string, k rowKey, m *memoRow) {
 func contextKey(ws *Worksheet) string {
 	ctx := *ws
 	ctx.Rows, ctx.Title, ctx.Notes = nil, "", ""
-	b, err := json.Marshal(&ctx)
-	if err != nil {
-		panic(err) // a decoded worksheet always encodes; see EvaluateJSON's recover
-	}
-	return string(b)
+	return string(ctx.AppendJSON(nil))
 }

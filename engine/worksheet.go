@@ -2,13 +2,12 @@ package engine
 
 import (
 	"bytes"
-	"encoding/json"
 	"errors"
-	"fmt"
-	"reflect"
-	"slices"
+	"math"
+	"strconv"
 	"strings"
 
+	"gibbsheet/engine/internal/say"
 	"gibbsheet/engine/thermo"
 )
 
@@ -90,46 +89,44 @@ var ErrFormat = errors.New("not a Gibbsheet worksheet")
 // Decode reads a worksheet document. It fails only when the bytes cannot be read as a worksheet at all: not
 // JSON, a field of the wrong type, or a missing or unsupported format. Unknown fields are ignored and listed
 // in the returned slice (as JSON paths) so the caller can warn about them.
+//
+// The reading is encoding/json's (see decode.go), and so is what is reported first: an error in the JSON
+// syntax, then a wrong or missing format, then a field of the wrong type.
 func Decode(data []byte) (*Worksheet, []string, error) {
-	ws := new(Worksheet)
-	dec := json.NewDecoder(bytes.NewReader(data))
-	dec.DisallowUnknownFields()
-	err := dec.Decode(ws)
-	if err == nil {
+	d := decoder{data: data}
+	ws, err := d.document()
+	if err != nil {
+		return nil, nil, err
+	}
+	if d.typeErr == nil && !d.unknown {
 		if err := checkFormat(&ws.Format, data); err != nil {
 			return nil, nil, err
 		}
-		if dec.More() {
-			return nil, nil, fmt.Errorf("not valid JSON: there is more text after the worksheet")
+		if d.trailing >= 0 {
+			return nil, nil, d.trailingError()
 		}
 		return ws, nil, nil
 	}
-	// A wrong or missing format explains the other errors best, so it is reported first.
-	var probe struct {
-		Format *string `json:"format"`
+	// As the encoding/json reader had it: with an unknown member or a wrong value somewhere, the format is
+	// that of the last "format" member, a null clearing it (without, a null is ignored as for any text).
+	if d.trailing >= 0 {
+		return nil, nil, d.trailingError()
 	}
-	if perr := json.Unmarshal(data, &probe); perr != nil {
-		return nil, nil, describeJSONError(data, perr)
+	if d.formatErr != nil {
+		return nil, nil, d.formatErr
 	}
-	if probe.Format == nil {
-		return nil, nil, checkFormat(nil, data)
+	if err := checkFormat(d.probe, data); err != nil {
+		return nil, nil, err
 	}
-	if ferr := checkFormat(probe.Format, data); ferr != nil {
-		return nil, nil, ferr
+	if d.typeErr != nil {
+		return nil, nil, d.typeErr
 	}
-	if !strings.HasPrefix(err.Error(), "json: unknown field ") {
-		return nil, nil, describeJSONError(data, err)
-	}
-	ws = new(Worksheet)
-	if err := json.Unmarshal(data, ws); err != nil {
-		return nil, nil, describeJSONError(data, err)
-	}
-	return ws, unknownFields(data), nil
+	return ws, d.unknownList(), nil
 }
 
-// Encode writes the worksheet document, indented for people who read or diff it.
-func (ws *Worksheet) Encode() ([]byte, error) {
-	return json.MarshalIndent(ws, "", "  ")
+func (d *decoder) trailingError() error {
+	line, col := lineColumn(d.data, d.trailing)
+	return say.Errorf("not valid JSON at line %d, column %d: there is more text after the worksheet", line, col)
 }
 
 // checkFormat checks the "format" field; data tells a missing field from an empty one.
@@ -139,52 +136,18 @@ func checkFormat(f *string, data []byte) error {
 	}
 	switch {
 	case f == nil:
-		return fmt.Errorf("%w: the \"format\" field is missing (expected %q)", ErrFormat, Format)
+		return say.Errorf("%w: the \"format\" field is missing (expected %q)", ErrFormat, Format)
 	case *f == Format:
 		return nil
 	case strings.HasPrefix(*f, formatPrefix):
-		return fmt.Errorf("%w: format %q is not readable by this version, which reads %q; "+
+		return say.Errorf("%w: format %q is not readable by this version, which reads %q; "+
 			"open it with a newer Gibbsheet", ErrFormat, *f, Format)
 	default:
-		return fmt.Errorf("%w: format %q found, expected %q", ErrFormat, *f, Format)
+		return say.Errorf("%w: format %q found, expected %q", ErrFormat, *f, Format)
 	}
 }
 
-// describeJSONError turns encoding/json's errors into a message that names the field or the line.
-func describeJSONError(data []byte, err error) error {
-	var syntax *json.SyntaxError
-	var typ *json.UnmarshalTypeError
-	switch {
-	case strings.Contains(err.Error(), "unexpected end of JSON input"):
-		return fmt.Errorf("not valid JSON: the text ends before the document is complete")
-	case errors.As(err, &syntax):
-		// Offset counts the bytes read, the offending one included.
-		line, col := lineColumn(data, max(0, int(syntax.Offset)-1))
-		return fmt.Errorf("not valid JSON at line %d, column %d: %s", line, col, syntax.Error())
-	case errors.As(err, &typ):
-		field := typ.Field
-		if field == "" {
-			return fmt.Errorf("a worksheet must be a JSON object, found %s", typ.Value)
-		}
-		return fmt.Errorf("field %q must be %s, found %s", field, jsonKind(typ.Type.Kind().String()), typ.Value)
-	}
-	return fmt.Errorf("cannot read the worksheet: %v", err)
-}
-
-func jsonKind(goKind string) string {
-	switch goKind {
-	case "string":
-		return "text"
-	case "float64", "int":
-		return "a number"
-	case "slice":
-		return "a list"
-	case "map", "struct", "ptr":
-		return "an object"
-	}
-	return goKind
-}
-
+// lineColumn turns a byte offset into a 1-based line and a 1-based column counted in bytes.
 func lineColumn(data []byte, offset int) (line, col int) {
 	if offset > len(data) {
 		offset = len(data)
@@ -195,69 +158,275 @@ func lineColumn(data []byte, offset int) (line, col int) {
 	return line, col
 }
 
-// unknownFields lists the JSON paths of object members the document format does not define.
-func unknownFields(data []byte) []string {
-	var doc map[string]json.RawMessage
-	if json.Unmarshal(data, &doc) != nil {
-		return nil
+// Encode writes the worksheet document, indented for people who read or diff it: the bytes of
+// json.MarshalIndent(ws, "", "  "). It fails if a number is NaN or infinite, which JSON cannot write.
+func (ws *Worksheet) Encode() ([]byte, error) {
+	if path := ws.nonFinite(); path != "" {
+		return nil, say.Errorf("cannot write the worksheet: field %q is not a finite number", path)
 	}
-	var out []string
-	known := fieldSet(Worksheet{})
-	for k, v := range doc {
-		if !known[k] {
-			out = append(out, k)
+	return appendIndented(nil, ws.AppendJSON(nil)), nil
+}
+
+// AppendJSON appends the worksheet document, compact, to dst and returns the extended buffer: the bytes of
+// json.Marshal(ws), fields in declaration order with the omitempty rules of the tags, map keys sorted,
+// numbers and strings as encoding/json writes them. Like Result.AppendJSON it panics if a number is NaN or
+// infinite (Encode reports that as an error instead).
+func (ws *Worksheet) AppendJSON(dst []byte) []byte {
+	if ws == nil {
+		return append(dst, "null"...)
+	}
+	dst = append(dst, `{"format":`...)
+	dst = appendJSONString(dst, ws.Format)
+	dst = appendOptString(dst, `,"title":`, ws.Title)
+	dst = appendOptString(dst, `,"notes":`, ws.Notes)
+	if c := ws.Conditions; c != nil {
+		dst = append(dst, `,"conditions":`...)
+		start := len(dst)
+		dst = appendOptFloat(dst, `,"pH":`, c.PH)
+		dst = appendOptFloat(dst, `,"ionicStrength":`, c.IonicStrength)
+		dst = appendOptFloat(dst, `,"pMg":`, c.PMg)
+		dst = appendOptFloat(dst, `,"temperature":`, c.Temperature)
+		dst = closeObject(dst, start)
+	}
+	dst = appendOptString(dst, `,"defaultConcentration":`, ws.DefaultConcentration)
+	if len(ws.Concentrations) > 0 {
+		dst = append(dst, `,"concentrations":`...)
+		dst = appendSortedMap(dst, ws.Concentrations, appendJSONString)
+	}
+	if len(ws.Compounds) > 0 {
+		dst = append(dst, `,"compounds":`...)
+		dst = appendJSONSlice(dst, ws.Compounds, (*Compound).appendJSON)
+	}
+	if len(ws.Values) > 0 {
+		dst = append(dst, `,"values":`...)
+		dst = appendSortedMap(dst, ws.Values, appendValue)
+	}
+	dst = appendOptFloat(dst, `,"nearEquilibrium":`, ws.NearEquilibrium)
+	if len(ws.Compartments) > 0 {
+		dst = append(dst, `,"compartments":`...)
+		dst = appendJSONSlice(dst, ws.Compartments, (*Compartment).appendJSON)
+	}
+	dst = appendOptString(dst, `,"defaultCompartment":`, ws.DefaultCompartment)
+	if b := ws.Bounds; b != nil {
+		dst = append(dst, `,"bounds":`...)
+		start := len(dst)
+		if len(b.Default) > 0 {
+			dst = append(dst, `,"default":`...)
+			dst = appendJSONSlice(dst, b.Default, appendJSONStringAt)
+		}
+		if len(b.Compounds) > 0 {
+			dst = append(dst, `,"compounds":`...)
+			dst = appendSortedMap(dst, b.Compounds, func(dst []byte, pair []string) []byte {
+				return appendJSONSlice(dst, pair, appendJSONStringAt)
+			})
+		}
+		dst = closeObject(dst, start)
+	}
+	dst = append(dst, `,"rows":`...)
+	dst = appendJSONSlice(dst, ws.Rows, (*Row).appendJSON)
+	return append(dst, '}')
+}
+
+func (c *Compound) appendJSON(dst []byte) []byte {
+	dst = append(dst, `{"id":`...)
+	dst = appendJSONString(dst, c.ID)
+	dst = appendOptString(dst, `,"name":`, c.Name)
+	dst = appendOptString(dst, `,"formula":`, c.Formula)
+	if c.Charge != nil {
+		dst = append(dst, `,"charge":`...)
+		dst = strconv.AppendInt(dst, int64(*c.Charge), 10)
+	}
+	if len(c.Species) > 0 {
+		dst = append(dst, `,"species":`...)
+		dst = appendJSONSlice(dst, c.Species, appendSpecies)
+	}
+	dst = appendOptFloat(dst, `,"dfG0prime":`, c.DfG0Prime)
+	return append(dst, '}')
+}
+
+func appendSpecies(s *thermo.Species, dst []byte) []byte {
+	dst = append(dst, `{"dfG0":`...)
+	dst = appendJSONFloat(dst, s.DfG0)
+	dst = appendOptFloat(dst, `,"dfH0":`, s.DfH0)
+	dst = append(dst, `,"charge":`...)
+	dst = strconv.AppendInt(dst, int64(s.Charge), 10)
+	dst = append(dst, `,"nH":`...)
+	dst = strconv.AppendInt(dst, int64(s.NH), 10)
+	if s.NMg != 0 {
+		dst = append(dst, `,"nMg":`...)
+		dst = strconv.AppendInt(dst, int64(s.NMg), 10)
+	}
+	return append(dst, '}')
+}
+
+func appendValue(dst []byte, v Value) []byte {
+	start := len(dst)
+	dst = appendOptFloat(dst, `,"phosphate":`, v.Phosphate)
+	dst = appendOptFloat(dst, `,"reducing":`, v.Reducing)
+	dst = appendOptFloat(dst, `,"po":`, v.PO)
+	dst = appendOptFloat(dst, `,"protonsPerATP":`, v.ProtonsPerATP)
+	return closeObject(dst, start)
+}
+
+func (r *Row) appendJSON(dst []byte) []byte {
+	dst = append(dst, `{"id":`...)
+	dst = appendJSONString(dst, r.ID)
+	dst = append(dst, `,"equation":`...)
+	dst = appendJSONString(dst, r.Equation)
+	dst = appendOptFloat(dst, `,"times":`, r.Times)
+	dst = appendOptFloat(dst, `,"dG0":`, r.DG0)
+	dst = appendOptString(dst, `,"note":`, r.Note)
+	return append(dst, '}')
+}
+
+func (c *Compartment) appendJSON(dst []byte) []byte {
+	dst = append(dst, `{"id":`...)
+	dst = appendJSONString(dst, c.ID)
+	dst = appendOptString(dst, `,"name":`, c.Name)
+	dst = appendOptFloat(dst, `,"pH":`, c.PH)
+	dst = appendOptFloat(dst, `,"ionicStrength":`, c.IonicStrength)
+	dst = appendOptFloat(dst, `,"pMg":`, c.PMg)
+	dst = appendOptFloat(dst, `,"potential":`, c.Potential)
+	return append(dst, '}')
+}
+
+// appendOptString writes the member name (with its leading comma) and s, unless s is empty (omitempty).
+func appendOptString(dst []byte, name, s string) []byte {
+	if s == "" {
+		return dst
+	}
+	return appendJSONString(append(dst, name...), s)
+}
+
+// appendOptFloat writes the member name (with its leading comma) and *f, unless f is nil (omitempty).
+func appendOptFloat(dst []byte, name string, f *float64) []byte {
+	if f == nil {
+		return dst
+	}
+	return appendJSONFloat(append(dst, name...), *f)
+}
+
+// closeObject ends an object whose members, each written with a leading comma, start at dst[start]: the
+// first comma becomes the "{".
+func closeObject(dst []byte, start int) []byte {
+	if len(dst) == start {
+		return append(dst, '{', '}')
+	}
+	dst[start] = '{'
+	return append(dst, '}')
+}
+
+// appendSortedMap writes a map as an object, names sorted as encoding/json sorts them (bytewise).
+func appendSortedMap[V any](dst []byte, m map[string]V, appendValue func([]byte, V) []byte) []byte {
+	for i, k := range sortedKeys(m) {
+		dst = append(dst, ',')
+		if i == 0 {
+			dst[len(dst)-1] = '{'
+		}
+		dst = appendJSONString(dst, k)
+		dst = append(dst, ':')
+		dst = appendValue(dst, m[k])
+	}
+	return append(dst, '}')
+}
+
+// appendIndented appends the compact JSON src indented as json.Indent(dst, src, "", "  ") indents it: a
+// member or element per line, two spaces a level, a space after ":", and {} and [] left empty on their line.
+func appendIndented(dst, src []byte) []byte {
+	depth := 0
+	opened := false // the last byte opened an object or list
+	inString, escaped := false, false
+	for _, c := range src {
+		if inString {
+			dst = append(dst, c)
+			switch {
+			case escaped:
+				escaped = false
+			case c == '\\':
+				escaped = true
+			case c == '"':
+				inString = false
+			}
 			continue
 		}
-		switch k {
-		case "conditions":
-			out = append(out, unknownIn(v, "conditions", fieldSet(Conditions{}))...)
-		case "rows":
-			out = append(out, unknownInList(v, "rows", fieldSet(Row{}))...)
-		case "compounds":
-			out = append(out, unknownInList(v, "compounds", fieldSet(Compound{}))...)
-		case "compartments":
-			out = append(out, unknownInList(v, "compartments", fieldSet(Compartment{}))...)
-		case "bounds":
-			out = append(out, unknownIn(v, "bounds", fieldSet(Bounds{}))...)
+		if opened && c != '}' && c != ']' {
+			opened = false
+			depth++
+			dst = appendNewline(dst, depth)
+		}
+		switch c {
+		case '"':
+			inString = true
+			dst = append(dst, c)
+		case '{', '[':
+			opened = true
+			dst = append(dst, c)
+		case ',':
+			dst = appendNewline(append(dst, c), depth)
+		case ':':
+			dst = append(dst, ':', ' ')
+		case '}', ']':
+			if opened {
+				opened = false
+			} else {
+				depth--
+				dst = appendNewline(dst, depth)
+			}
+			dst = append(dst, c)
+		default:
+			dst = append(dst, c)
 		}
 	}
-	slices.Sort(out)
-	return out
+	return dst
 }
 
-func unknownInList(data json.RawMessage, path string, known map[string]bool) []string {
-	var list []json.RawMessage
-	if json.Unmarshal(data, &list) != nil {
-		return nil
+func appendNewline(dst []byte, depth int) []byte {
+	dst = append(dst, '\n')
+	for range depth {
+		dst = append(dst, ' ', ' ')
 	}
-	var out []string
-	for i, item := range list {
-		out = append(out, unknownIn(item, fmt.Sprintf("%s[%d]", path, i), known)...)
-	}
-	return out
+	return dst
 }
 
-func unknownIn(data json.RawMessage, path string, known map[string]bool) []string {
-	var obj map[string]json.RawMessage
-	if json.Unmarshal(data, &obj) != nil {
-		return nil
-	}
-	var out []string
-	for k := range obj {
-		if !known[k] {
-			out = append(out, path+"."+k)
+// nonFinite returns the path of the first number of the worksheet, in document order, that is NaN or
+// infinite; "" if none.
+func (ws *Worksheet) nonFinite() string {
+	bad := ""
+	check := func(f *float64, format string, args ...any) {
+		if bad == "" && f != nil && (math.IsNaN(*f) || math.IsInf(*f, 0)) {
+			bad = say.Sprintf(format, args...)
 		}
 	}
-	return out
-}
-
-// fieldSet lists the JSON member names of a document struct, read from its tags.
-func fieldSet(v any) map[string]bool {
-	t := reflect.TypeOf(v)
-	set := make(map[string]bool, t.NumField())
-	for i := range t.NumField() {
-		name, _, _ := strings.Cut(t.Field(i).Tag.Get("json"), ",")
-		set[name] = true
+	if c := ws.Conditions; c != nil {
+		check(c.PH, "conditions.pH")
+		check(c.IonicStrength, "conditions.ionicStrength")
+		check(c.PMg, "conditions.pMg")
+		check(c.Temperature, "conditions.temperature")
 	}
-	return set
+	for i, c := range ws.Compounds {
+		for j := range c.Species {
+			check(&c.Species[j].DfG0, "compounds[%d].species[%d].dfG0", i, j)
+			check(c.Species[j].DfH0, "compounds[%d].species[%d].dfH0", i, j)
+		}
+		check(c.DfG0Prime, "compounds[%d].dfG0prime", i)
+	}
+	for _, k := range sortedKeys(ws.Values) {
+		v := ws.Values[k]
+		check(v.Phosphate, "values.%s.phosphate", k)
+		check(v.Reducing, "values.%s.reducing", k)
+		check(v.PO, "values.%s.po", k)
+		check(v.ProtonsPerATP, "values.%s.protonsPerATP", k)
+	}
+	check(ws.NearEquilibrium, "nearEquilibrium")
+	for i, c := range ws.Compartments {
+		check(c.PH, "compartments[%d].pH", i)
+		check(c.IonicStrength, "compartments[%d].ionicStrength", i)
+		check(c.PMg, "compartments[%d].pMg", i)
+		check(c.Potential, "compartments[%d].potential", i)
+	}
+	for i, r := range ws.Rows {
+		check(r.Times, "rows[%d].times", i)
+		check(r.DG0, "rows[%d].dG0", i)
+	}
+	return bad
 }

@@ -16,7 +16,7 @@ func TestDecodeFormat(t *testing.T) {
 		{`{"format":"spreadsheet","rows":[]}`, `format "spreadsheet" found`},
 		{`{"format":7}`, `field "format" must be text`},
 		{`[1,2]`, `must be a JSON object`},
-		{`{"format":"gibbsheet-worksheet/1","rows":[{"id":"a","times":"two"}]}`, `field "rows.times" must be a number`},
+		{`{"format":"gibbsheet-worksheet/1","rows":[{"id":"a","times":"two"}]}`, `field "rows[0].times" must be a number, found text`},
 		{`{"format":"gibbsheet-worksheet/1",`, `ends before the document is complete`},
 		{"{\n\"format\": x}", `line 2, column 11`},
 		{``, `ends before`},
