@@ -38,6 +38,8 @@ type evaluation struct {
 	defc        concentration
 	res         *Result
 	uses        map[string]int // index into res.Compounds by reactant key
+	lastUse     []string       // by index into res.Compounds: the last row that used the compound
+	useRows     []useRef       // every row's uses of compounds, in order
 	context     string         // everything in the worksheet that a row's result depends on, but the rows
 	used        []stoich       // the reactants the row being computed names
 	named       []*compound    // the compounds the row being computed names, H+ included
@@ -132,6 +134,7 @@ func (s *setup) evaluation(ws *Worksheet, unknown []string) *evaluation {
 func (ev *evaluation) evaluateRows() []computedRow {
 	ws, res := ev.ws, ev.res
 	ev.checkRowIDs()
+	ev.useRows = make([]useRef, 0, 4*len(ws.Rows))
 	var net netReaction
 	total := Total{DG0: new(float64), DG: new(float64)}
 	var incomplete []string
@@ -173,6 +176,7 @@ func (ev *evaluation) evaluateRows() []computedRow {
 		ev.warn(Warning{Code: "total-out-of-range", Path: "rows", Message: "the total cost is out of range and is not shown"})
 	}
 	res.Total = total
+	ev.finishUses()
 	res.Values = ev.values.used(ev.cat)
 	if len(res.Errors) == 0 {
 		res.Errors = nil

@@ -64,8 +64,12 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 	if base != s.seq || base == 0 {
 		base = 0
 	}
-	var prev map[string]int // the previous rows by encoding, made when first needed
-	dst := make([]byte, 0, sizeGuessBase+64*len(res.Rows))
+	var prev map[*byte]int // the previous rows by where their encoding lies, made when first needed
+	size := sizeGuessBase + 64*len(res.Rows) + sizeGuessCompound*len(res.Compounds)
+	for i := range res.Compounds {
+		size += 8 * len(res.Compounds[i].Rows)
+	}
+	dst := make([]byte, 0, size)
 	dst = append(dst, `{"seq":`...)
 	dst = strconv.AppendInt(dst, int64(s.seq+1), 10)
 	dst = append(dst, `,"base":`...)
@@ -80,13 +84,14 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 				dst = strconv.AppendInt(dst, int64(i), 10)
 				continue
 			}
+			// A row moved elsewhere is the same remembered row, so its encoding lies at the same address.
 			if prev == nil {
-				prev = make(map[string]int, len(s.rows))
+				prev = make(map[*byte]int, len(s.rows))
 				for j := len(s.rows) - 1; j >= 0; j-- {
-					prev[string(s.rows[j])] = j
+					prev[&s.rows[j][0]] = j
 				}
 			}
-			if j, ok := prev[string(enc)]; ok {
+			if j, ok := prev[&enc[0]]; ok {
 				dst = strconv.AppendInt(dst, int64(j), 10)
 				continue
 			}

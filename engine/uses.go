@@ -1,27 +1,58 @@
 package engine
 
 import (
-	"gibbsheet/engine/equation"
 	"slices"
+
+	"gibbsheet/engine/equation"
 )
 
 // use records that a row uses a compound, for the result's list of compounds and their concentrations.
+// The compound's list of rows is filled by finishUses.
 func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
-	if i, ok := ev.uses[r.key]; ok {
-		u := &ev.res.Compounds[i]
-		if n := len(u.Rows); n == 0 || u.Rows[n-1] != rowID {
-			u.Rows = append(u.Rows, rowID)
-		}
-		return
+	i, ok := ev.uses[r.key]
+	if !ok {
+		i = ev.newUse(r, t)
 	}
+	if ev.lastUse[i] != rowID {
+		ev.lastUse[i] = rowID
+		ev.useRows = append(ev.useRows, useRef{compound: i, row: rowID})
+	}
+}
+
+// useRef is one row's use of the compound at index compound of the result's list.
+type useRef struct {
+	compound int
+	row      string
+}
+
+// finishUses gives every compound of the result its list of rows, all in one backing array: appending
+// to a list per compound is much of an evaluation's time in WebAssembly.
+func (ev *evaluation) finishUses() {
+	list := ev.res.Compounds
+	counts := make([]int, len(list))
+	for _, u := range ev.useRows {
+		counts[u.compound]++
+	}
+	backing := make([]string, len(ev.useRows))
+	off := 0
+	for i := range list {
+		list[i].Rows = backing[off : off : off+counts[i]]
+		off += counts[i]
+	}
+	for _, u := range ev.useRows {
+		c := &list[u.compound]
+		c.Rows = append(c.Rows, u.row)
+	}
+}
+
+func (ev *evaluation) newUse(r *reactant, t equation.Term) int {
 	if ev.res.Compounds == nil || len(ev.res.Compounds) == cap(ev.res.Compounds) {
 		// Room for a pathway's compounds at once: growing a slice of these structs is dear in WebAssembly.
 		ev.res.Compounds = slices.Grow(ev.res.Compounds, 32+len(ev.res.Compounds))
 	}
-	rows := make([]string, 1, 8)
-	rows[0] = rowID
 	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name + tagOf(t.Compartment), Name: r.name,
-		Compartment: r.comp.id, Approximation: r.approx, Rows: rows})
+		Compartment: r.comp.id, Approximation: r.approx})
+	ev.lastUse = append(ev.lastUse, "")
 	u := &ev.res.Compounds[len(ev.res.Compounds)-1]
 	if r.lib != nil {
 		u.Library = r.lib.ID
@@ -42,7 +73,9 @@ func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
 			u.Concentration = &m
 		}
 	}
-	ev.uses[r.key] = len(ev.res.Compounds) - 1
+	i := len(ev.res.Compounds) - 1
+	ev.uses[r.key] = i
+	return i
 }
 
 func tagOf(compartment string) string {
