@@ -45,10 +45,7 @@ type LibraryEntry struct {
 	Source      string   `json:"source"`
 }
 
-// compoundsJSON is the library as LibraryEntry values in JSON, written when the library is generated
-// (compounds.LibraryJSON), so that the page gets it without work; TestCompoundsJSON checks it against the
-// library.
-var compoundsJSON = []byte(compounds.LibraryJSON)
-
 // CompoundsJSON returns the built-in library as a JSON array of LibraryEntry, for completion in the page.
-func CompoundsJSON() []byte { return compoundsJSON }
+// The text is written when the library is generated (compounds.LibraryJSON), so that the page gets it with
+// no work; TestCompoundsJSON checks it against the library.
+func CompoundsJSON() string { return compounds.LibraryJSON }

@@ -34,7 +34,7 @@ func (ev *evaluation) row(i int, in *Row) *memoRow {
 		if m.nu != nil {
 			ev.flux(&m.result, m.nu)
 		}
-		m.json = m.result.appendJSON(nil)
+		m.json = m.result.appendJSON(make([]byte, 0, sizeGuessRow))
 		m.used, m.named = ev.used, ev.named
 		rows.put(ev.context, key, m)
 	}

@@ -172,7 +172,7 @@ func TestCompoundsJSON(t *testing.T) {
 			Approximate: c.Approximation != "", Source: c.Source})
 	}
 	var got []LibraryEntry
-	if err := json.Unmarshal(CompoundsJSON(), &got); err != nil {
+	if err := json.Unmarshal([]byte(CompoundsJSON()), &got); err != nil {
 		t.Fatal(err)
 	}
 	if diff := cmp.Diff(want, got); diff != "" {

@@ -73,6 +73,12 @@ func (r Rat) norm() Rat {
 // t = a·(d/d1) + c·(b/d1) and d2 = gcd(t, d1), the sum is (t/d2) / ((b/d1)·(d/d2)),
 // reduced; t is held in 128 bits (math/bits), so nothing overflows on the way.
 func (r Rat) Add(s Rat) (Rat, bool) {
+	// Whole numbers (most coefficients) add directly unless the sum overflows.
+	if (r.Den == 1 || r.Den == 0) && (s.Den == 1 || s.Den == 0) {
+		if sum := r.Num + s.Num; (r.Num^sum)&(s.Num^sum) >= 0 && sum != math.MinInt64 {
+			return Rat{sum, 1}, true
+		}
+	}
 	r, s = r.norm(), s.norm()
 	d1 := gcd(uint64(r.Den), uint64(s.Den))
 	b1, d1s := uint64(r.Den)/d1, uint64(s.Den)/d1

@@ -57,7 +57,7 @@ func api() js.Value {
 		return string(out), nil
 	})
 	compounds := guard(func([]js.Value) (any, error) {
-		return string(engine.CompoundsJSON()), nil
+		return engine.CompoundsJSON(), nil
 	})
 	obj := js.Global().Get("Object").New()
 	obj.Set("evaluate", throwing(evaluate))

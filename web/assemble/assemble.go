@@ -1,13 +1,15 @@
 // Package assemble builds the worksheet page as one self-contained HTML file: the engine compiled to
 // WebAssembly (gzip -9, written as text 7 bits to a character by Text7, inflated in the page with
-// DecompressionStream), Go's wasm_exec.js from the same toolchain, the style sheet, the page's
-// JavaScript modules joined into one script, and the initial worksheet as inert JSON. The file needs no
-// server and no network.
+// DecompressionStream), Go's wasm_exec.js from the same toolchain and the script that starts the engine
+// (all three at the top of the body, so that the engine compiles while the rest of the file is parsed),
+// the style sheet, the page's JavaScript modules joined into one script, and the initial worksheet as
+// inert JSON. The file needs no server and no network.
 package assemble
 
 import (
 	"bytes"
 	"compress/gzip"
+	_ "embed"
 	"fmt"
 	"io/fs"
 	"os"
@@ -37,6 +39,12 @@ type Page struct {
 	WasmSize int // bytes of the WebAssembly module
 	GzipSize int // bytes of the module after gzip -9
 }
+
+// startScript starts the engine while the browser parses the rest of the page; it follows wasm_exec.js in
+// the classic script after the engine's element at the top of the body (js/engine.js waits for it).
+//
+//go:embed start.js
+var startScript string
 
 // Markers in src/index.html, each replaced by one part of the page; each must occur exactly once.
 const (
@@ -117,7 +125,12 @@ func Build(opts Options) (*Page, error) {
 	if err != nil {
 		return nil, fmt.Errorf("assemble: %w", err)
 	}
-	for name, text := range map[string]string{"wasm_exec.js": string(wasmExec), "page script": script} {
+	startLines := strings.Split(startScript, "\n")
+	if err := checkLiterals("start.js", startLines); err != nil {
+		return nil, fmt.Errorf("assemble: %w", err)
+	}
+	start := compact(startLines) + "\n"
+	for name, text := range map[string]string{"wasm_exec.js": string(wasmExec), "start.js": start, "page script": script} {
 		if strings.Contains(strings.ToLower(text), "</script") {
 			return nil, fmt.Errorf("assemble: %s contains </script, which would end its element early", name)
 		}
@@ -132,7 +145,8 @@ func Build(opts Options) (*Page, error) {
 		{markTemplates, templates},
 		{markWasm, `<script type="application/octet-stream" id="gs-engine" data-encoding="gzip+text7" data-length="` +
 			fmt.Sprint(gz.Len()) + `">` + Text7(gz.Bytes()) + `</script>`},
-		{markWasmExec, "<script>\n" + string(wasmExec) + "\n</script>"},
+		// wasm_exec.js and, after it, the script that starts the engine with it.
+		{markWasmExec, "<script>\n" + string(wasmExec) + "\n" + start + "</script>"},
 		{markScript, `<script type="module" data-version="` + htmlAttr(opts.Version) + "\">\n" + script + "</script>"},
 	}
 	// fillPage (share.go) adds the Content-Security-Policy with the hashes of these scripts and the shell

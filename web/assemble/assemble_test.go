@@ -45,6 +45,10 @@ func checkText7Safe(t *testing.T, s string) {
 	if strings.ContainsAny(s, "\x00\r<") {
 		t.Fatalf("encoded text holds NUL, CR or <")
 	}
+	// Latin-1 only, so that the browser holds the text one byte a character.
+	if i := strings.IndexFunc(s, func(r rune) bool { return r > 0xff }); i >= 0 {
+		t.Fatalf("encoded text holds %U at byte %d, beyond Latin-1", []rune(s[i:])[0], i)
+	}
 }
 
 func FuzzText7(f *testing.F) {

@@ -7,9 +7,9 @@ import (
 )
 
 // Text7 writes 7 bits per character. Here the two bytes give the values 60, 60 and 0 (padding); 60 is "<"
-// and 0 is NUL, which may not stand raw in a script element, so they become U+013C and U+0100.
+// and 0 is NUL, which may not stand raw in a script element, so they become U+00FC and U+00C0.
 func ExampleText7() {
 	s := assemble.Text7([]byte{0x78, 0xf0})
 	fmt.Printf("%q %v\n", s, assemble.FromText7(s, 2))
-	// Output: "ļļĀ" [120 240]
+	// Output: "üüÀ" [120 240]
 }

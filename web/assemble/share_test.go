@@ -75,7 +75,7 @@ func TestPolicyHashes(t *testing.T) {
 		}
 	}
 	if len(wantScripts) != 2 || len(wantStyles) != 1 {
-		t.Fatalf("found %d running scripts and %d styles, want 2 (wasm_exec.js, the page) and 1", len(wantScripts), len(wantStyles))
+		t.Fatalf("found %d running scripts and %d styles, want 2 (wasm_exec.js with start.js, the page) and 1", len(wantScripts), len(wantStyles))
 	}
 	got := func(d string) []string {
 		var hs []string

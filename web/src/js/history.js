@@ -27,6 +27,7 @@ function changed() {
 }
 
 function track(kind) {
+  if (kind === "analysis") return; // the document did not change
   if (!store.doc || hist.restoring) return;
   const text = JSON.stringify(store.doc);
   if (kind === "load") {

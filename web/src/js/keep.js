@@ -93,6 +93,7 @@ function persist() {
 }
 
 function track(kind) {
+  if (kind === "analysis") return; // the document did not change
   if (kind === "load" && !isRestoring()) {
     if (keep.opening) return; // openSheet set the id
     // Another worksheet came in (new, template, file): it is kept under a new id from its first edit.

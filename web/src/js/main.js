@@ -1,8 +1,11 @@
-// The page's start: read the initial worksheet embedded in the page, start the engine, load the
-// compound library for completion, put the worksheet in the page and wire the controls. Whatever the
-// page shows is drawn again from store.result after every edit.
+// The page's start: start the engine, read the initial worksheet embedded in the page, wire the
+// controls, put the worksheet in the page and, once every panel is drawn, load the compound library for
+// completion. On opening, the grid with the first result is drawn and painted before the panels below
+// it (render); the marks gibbsheet:first-result, gibbsheet:first-frame and gibbsheet:panels time this
+// (web/browser/bench_start_test.go). Whatever the page shows is drawn again from store.result after
+// every edit.
 
-import { store, onChange, loadDocument, emptyDocument, recompute } from "./state.js";
+import { store, onChange, loadDocument, emptyDocument, recompute, evaluateDocument, settled } from "./state.js";
 import { startEngine } from "./engine.js";
 import { renderStructure, renderInputs, renderResults } from "./grid.js";
 import { onKey, onPaste } from "./keyboard.js";
@@ -24,10 +27,33 @@ import { setupKeep, chooseInitial, mayReplace } from "./keep.js";
 import { setupHistory } from "./history.js";
 import { setupPublish } from "./publish.js";
 
-let firstResult = true;
-
 // timings holds how long each part of the last drawing took (ms), for benchmarks and curious users.
 const timings = {};
+
+// The parts of the page in the order they are drawn. On opening, the grid and what sits above it are
+// drawn first (FIRST) and the page paints them; the panels below follow in a task of their own.
+const FIRST = ["structure", "inputs", "results", "conditions", "fields", "marks", "messages"];
+const PANELS = ["levels", "own", "balance", "profile", "cost", "analysis", "compare", "compartments", "fields", "marks"];
+// What the analysis (the max-min driving force and its warnings), which follows a recompute, redraws.
+const ANALYSIS = ["analysis", "messages"];
+
+function draw(kind, names) {
+  const fns = {
+    structure: renderStructure, inputs: renderInputs, results: renderResults, conditions: renderConditions,
+    levels: renderLevels, own: () => renderOwn(kind), balance: () => renderBalance(kind), profile: renderProfile,
+    cost: renderCost, analysis: renderAnalysis, compare: renderCompare, compartments: () => renderCompartments(kind),
+    fields: refreshFields, marks: () => markFields(), messages: renderDocMessages,
+  };
+  for (const name of names) {
+    const t0 = performance.now();
+    fns[name]();
+    timings[name] = performance.now() - t0;
+  }
+}
+
+// opening is "first" until the first result is drawn, "panels" while the panels below wait for the
+// grid to be painted, and "" after.
+let opening = "first";
 
 function render(kind) {
   if (!store.doc) return;
@@ -35,25 +61,56 @@ function render(kind) {
   for (const u of document.querySelectorAll(".unit-e")) u.textContent = unitLabel(store.ui.unit);
   for (const b of document.querySelectorAll("[data-unit]")) b.setAttribute("aria-pressed", String(b.dataset.unit === store.ui.unit));
   document.getElementById("demo-flag").hidden = store.ui.origin !== "demo";
-  const steps = [
-    ["structure", renderStructure], ["inputs", renderInputs], ["results", renderResults],
-    ["conditions", renderConditions], ["levels", renderLevels], ["own", () => renderOwn(kind)],
-    ["balance", () => renderBalance(kind)], ["profile", renderProfile], ["cost", renderCost],
-    ["analysis", renderAnalysis], ["compare", renderCompare], ["compartments", () => renderCompartments(kind)],
-    ["fields", refreshFields], ["marks", () => markFields()], ["messages", renderDocMessages],
-  ];
-  for (const [name, fn] of steps) {
-    const t0 = performance.now();
-    fn();
-    timings[name] = performance.now() - t0;
-  }
-  timings.evaluate = store.lastEvalMs;
   document.title = (store.doc.title ? store.doc.title + " — " : "") + "Gibbsheet";
-  if (firstResult && store.result) {
-    firstResult = false;
+  timings.evaluate = store.lastEvalMs;
+  if (opening === "first" && store.result) {
+    opening = "panels";
+    draw(kind, FIRST);
     performance.mark("gibbsheet:first-result");
-    document.body.dataset.ready = "true";
+    afterPaint(() => {
+      performance.mark("gibbsheet:first-frame");
+      if (opening !== "panels") return; // a later drawing drew everything
+      opening = "";
+      draw(kind, PANELS);
+      pageReady();
+    });
+    return;
   }
+  if (opening === "panels") {
+    if (kind === "analysis") return; // the panels, drawn after the first paint, show it
+    opening = "";
+  }
+  if (kind === "analysis") {
+    draw(kind, ANALYSIS); // the document did not change: only what shows the max-min driving force
+    return;
+  }
+  draw(kind, [...FIRST.slice(0, 4), ...PANELS, "messages"]);
+  if (opening === "") pageReady();
+}
+
+// afterPaint runs fn once the browser has painted what is drawn so far (a frame, then a task), or after
+// a fifth of a second where the page is not painted (a hidden tab).
+function afterPaint(fn) {
+  let done = false;
+  const once = () => {
+    if (!done) {
+      done = true;
+      fn();
+    }
+  };
+  requestAnimationFrame(() => setTimeout(once, 0));
+  setTimeout(once, 200);
+}
+
+// pageReady runs once every panel is drawn: it marks the page as complete for tests and benchmarks and
+// reads the compound library for completion, which the first result does not need.
+let whenReady = null;
+function pageReady() {
+  if (!whenReady) return;
+  const then = whenReady;
+  whenReady = null;
+  performance.mark("gibbsheet:panels");
+  then();
 }
 
 // initialWorksheet reads the worksheet embedded in the page as inert JSON.
@@ -101,6 +158,8 @@ function wire() {
 async function main() {
   const state = document.getElementById("engine-state");
   onChange(render);
+  // The templates are inflated while the engine starts (the picker and the comparison panel list them).
+  const templatesReady = prepareTemplates();
   try {
     store.engine = await startEngine((why) => { state.textContent = "The engine stopped: " + why; });
   } catch (e) {
@@ -109,7 +168,7 @@ async function main() {
     return;
   }
   state.textContent = "";
-  await prepareTemplates();
+  await templatesReady;
   document.getElementById("version").textContent = "version " + store.engine.version;
   setupShare(); // before anything else reads the page: it keeps the texts the page saves itself from
   let initial;
@@ -122,21 +181,21 @@ async function main() {
   const fromFile = initial.origin !== "empty";
   initial = chooseInitial(initial); // the edits kept in this browser for this file, if any
   wire();
-  loadDocument(initial.doc, initial.origin);
-  if (fromFile && !initial.restored) markEmbedded();
-  initial.first?.();
-  // The library is only needed for completion, so it is read after the first result is on screen.
-  setTimeout(() => {
+  whenReady = () => {
     try {
       store.library = JSON.parse(store.engine.compounds());
       if (!state.textContent) state.textContent = `Engine ready · ${store.library.length} compounds in the library`;
     } catch (e) {
       state.textContent = "The compound list for completion could not be read: " + (e.message || e);
     }
-  }, 0);
+    document.body.dataset.ready = "true";
+  };
+  loadDocument(initial.doc, initial.origin);
+  if (fromFile && !initial.restored) markEmbedded();
+  initial.first?.();
 }
 
 // The page's functions for tests, benchmarks and features that load or read worksheets.
-globalThis.gibbsheetPage = { store, loadDocument, emptyDocument, recompute, timings, templates };
+globalThis.gibbsheetPage = { store, loadDocument, emptyDocument, recompute, evaluateDocument, settled, timings, templates };
 
 main();

@@ -19,7 +19,8 @@ export const store = {
 const listeners = [];
 
 // onChange registers fn(kind) to run after every recompute; kind is "load", "structure" (rows or
-// compounds added, removed or moved) or "values".
+// compounds added, removed or moved) or "values"; and with kind "analysis" when the max-min driving
+// force of the document arrives (the document itself did not change).
 export function onChange(fn) {
   listeners.push(fn);
 }
@@ -74,19 +75,76 @@ export function edit(change, kind = "values") {
   recompute(kind);
 }
 
-// recompute evaluates the document and tells every listener.
+// recompute evaluates the document and tells every listener. The engine answers with what changed since
+// the answer the page holds (gibbsheet.changes: rows that did not change come as their index in it), and
+// the max-min driving force, which weighs the whole pathway, follows in a task of its own so that the
+// rows are drawn first; the listeners hear of it with kind "analysis".
 export function recompute(kind = "values") {
-  if (store.engine) {
-    const t0 = performance.now();
-    try {
-      store.result = JSON.parse(store.engine.evaluate(JSON.stringify(store.doc)));
-      store.evalError = "";
-    } catch (e) {
-      store.evalError = e && e.message ? e.message : String(e);
-    }
-    store.lastEvalMs = performance.now() - t0;
-  }
+  evaluateDocument();
   for (const fn of listeners) fn(kind);
+}
+
+// evaluateDocument puts the engine's answer for the document in store.result (or its message in
+// store.evalError) and asks for the analysis to follow.
+export function evaluateDocument() {
+  if (!store.engine) return;
+  const t0 = performance.now();
+  try {
+    store.result = merge(JSON.parse(store.engine.changes(JSON.stringify(store.doc), live.seq)));
+    store.evalError = "";
+    scheduleAnalysis();
+  } catch (e) {
+    store.evalError = e && e.message ? e.message : String(e);
+  }
+  store.lastEvalMs = performance.now() - t0;
+}
+
+// live is what the page holds of the engine's answers: the number of the latest, the warnings of its
+// rows and totals, and the latest analysis, shown until the next one arrives.
+const live = { seq: 0, warnings: [], mdf: null, mdfWarnings: [], pending: false };
+
+// merge turns a changes document into the full result document.
+function merge(changes) {
+  const prev = store.result;
+  if (changes.base !== 0 && (!prev || changes.base !== live.seq)) {
+    throw new Error("the engine answered about a result this page does not hold; reload the page");
+  }
+  const rows = changes.rows.map((r) => (typeof r === "number" ? prev.rows[r] : r));
+  live.seq = changes.seq;
+  live.warnings = changes.warnings;
+  const { seq, base, ...result } = changes;
+  return { ...result, rows, warnings: live.warnings.concat(live.mdfWarnings), mdf: live.mdf };
+}
+
+function scheduleAnalysis() {
+  if (live.pending) return;
+  live.pending = true;
+  setTimeout(analyse, 0);
+}
+
+// analyse asks for the max-min driving force of the latest answer and tells the listeners.
+function analyse() {
+  live.pending = false;
+  if (!store.result || !store.engine) return;
+  let a;
+  try {
+    a = JSON.parse(store.engine.analysis());
+  } catch (e) {
+    a = { seq: live.seq, mdf: null, warnings: [{ code: "mdf-failed", message: "the max-min driving force could not be computed: " + (e.message || e) }] };
+  }
+  if (a.seq !== live.seq) return; // a newer answer has its own analysis coming
+  live.mdf = a.mdf;
+  live.mdfWarnings = a.warnings;
+  store.result = { ...store.result, mdf: a.mdf, warnings: live.warnings.concat(a.warnings) };
+  for (const fn of listeners) fn("analysis");
+}
+
+// settled resolves once the analysis of the latest answer is in store.result.
+export function settled() {
+  return new Promise((resolve) => {
+    const check = () => (live.pending ? setTimeout(check, 0) : resolve());
+    check();
+  });
 }
 
 // setDraft keeps text that could not go into the document, with the reason; clearDraft drops it.
