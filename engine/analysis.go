@@ -121,7 +121,8 @@ func (ev *evaluation) remedy(dg float64, nu []stoich) *Remedy {
 func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 	out := &MDF{Bottlenecks: []string{}, Concentrations: []OptimalConc{}, Rows: []MDFRow{}, Binding: []BindingBound{},
 		LeftOut: []string{}}
-	for i, r := range ev.res.Rows {
+	for i, m := range ev.done {
+		r := &m.result
 		if r.DG0 == nil {
 			out.LeftOut = append(out.LeftOut, ev.ws.Rows[i].ID)
 		}
@@ -145,7 +146,7 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 	// is most of the set-up's time otherwise.
 	allCompound, allCoef := make([]int, 0, terms), make([]float64, 0, terms)
 	for _, cr := range rows {
-		row := ev.res.Rows[cr.index]
+		row := &ev.done[cr.index].result
 		start := len(allCompound)
 		reaction := mdf.Reaction{DG0: *row.DG0}
 		for k := range cr.nu {
@@ -180,7 +181,7 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 	out.Rows = make([]MDFRow, 0, len(used))
 	out.Concentrations = make([]OptimalConc, 0, len(compounds))
 	for j, cr := range used {
-		id := ev.res.Rows[cr.index].ID
+		id := ev.done[cr.index].result.ID
 		out.Rows = append(out.Rows, MDFRow{ID: id, DrivingForce: sol.DrivingForce[j], Shadow: sol.Shadow[j],
 			Bottleneck: sol.Bottleneck[j]})
 		if sol.Bottleneck[j] {

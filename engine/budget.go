@@ -109,11 +109,12 @@ func (t valueTable) cost(nu []stoich, protons, times float64) Cost {
 }
 
 // used lists the values in use for the compounds the worksheet names (in rows, concentrations or values)
-// that have a value, by the names a user knows them by (library id or own id).
-func (t valueTable) used(cat *catalog) map[string]ValueUsed {
+// that have a value, by the names a user knows them by (library id or own id); named holds the keys of
+// the compounds named that have one.
+func (t valueTable) used(named map[string]bool) map[string]ValueUsed {
 	out := map[string]ValueUsed{}
 	for k, v := range t.byKey {
-		if _, named := cat.compounds[k]; named || t.overridden[k] {
+		if named[k] || t.overridden[k] {
 			out[strings.TrimPrefix(k, "own:")] = v
 		}
 	}

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -42,6 +43,59 @@ type decoder struct {
 	// Unknown member names compared exactly (see unknownList): by top-level name, the names it contributes.
 	unknowns map[string][]string
 	nested   []string // names collected in the member being read
+
+	seen     *rowsSeen // the rows of the document read before, if the caller kept them
+	rowLists int       // how many "rows" members the document has (after a second, no span holds)
+	next     rowsSeen  // this document's rows that read cleanly, for the next reading
+}
+
+// rowsSeen is what a Session keeps of the rows of the document it read last, so that reading the next
+// version takes a row whose text is unchanged from there instead of decoding it again: while someone
+// types, all rows but one are.
+type rowsSeen struct {
+	text  []byte    // the document read
+	rows  []Row     // its rows as read
+	spans []rowSpan // by index in rows: where a row that read cleanly stands in text
+}
+
+// rowSpan is where a row was decoded from, text[start:end], if it was an object with no member of an
+// unknown or misspelled name and no value of a wrong type, decoded into an empty row; an empty span for
+// others. Identical text decodes to the same row.
+type rowSpan struct{ start, end int32 }
+
+// rowOrSeen reads one row of the list, from the row seen at the same place when its text is the same.
+func (d *decoder) rowOrSeen(r *Row, collect bool) {
+	i := d.path[len(d.path)-1].index
+	fresh := *r == Row{}
+	d.peek()
+	start := d.off
+	if fresh && d.seen != nil && i < len(d.seen.spans) {
+		p := d.seen.spans[i]
+		if text := d.seen.text[p.start:p.end]; len(text) > 0 && len(d.data)-d.off >= len(text) &&
+			string(d.data[d.off:d.off+len(text)]) == string(text) {
+			*r = d.seen.rows[i]
+			d.off += len(text)
+			d.keepRow(i, start)
+			return
+		}
+	}
+	typeErr, unknown, nested := d.typeErr, d.unknown, len(d.nested)
+	d.row(r, collect)
+	if fresh && d.typeErr == typeErr && typeErr == nil && !unknown && !d.unknown && len(d.nested) == nested {
+		d.keepRow(i, start)
+	}
+}
+
+func (d *decoder) keepRow(i, start int) {
+	if d.next.spans == nil && d.seen != nil {
+		d.next.spans = make([]rowSpan, 0, len(d.seen.spans)+8)
+	}
+	for len(d.next.spans) < i {
+		d.next.spans = append(d.next.spans, rowSpan{}) // an empty span matches no row
+	}
+	if len(d.next.spans) == i && start <= math.MaxInt32 && d.off <= math.MaxInt32 {
+		d.next.spans = append(d.next.spans, rowSpan{start: int32(start), end: int32(d.off)})
+	}
 }
 
 // pathElem is one step of a path: a member name, or a list index when index >= 0. For a struct object,
@@ -578,7 +632,8 @@ func (d *decoder) worksheet(ws *Worksheet) {
 			}
 			d.bounds(ws.Bounds, collect)
 		case "rows":
-			decodeList(d, &ws.Rows, func(d *decoder, r *Row) { d.row(r, collect) })
+			d.rowLists++
+			decodeList(d, &ws.Rows, func(d *decoder, r *Row) { d.rowOrSeen(r, collect) })
 		default:
 			d.skipValue()
 		}

@@ -15,6 +15,7 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+	"unsafe"
 
 	"github.com/google/go-cmp/cmp"
 
@@ -529,5 +530,51 @@ func TestDecodeGenerated(t *testing.T) {
 	t.Logf("%d of 5000 read", read)
 	if read < 500 {
 		t.Errorf("only %d of 5000 generated documents were readable; the generator lost its way", read)
+	}
+}
+
+// TestDecodeSeen: reading a document with the rows kept from the one read before gives what Decode gives,
+// whatever changed between the two, including rows with unknown or misspelled members, which are never
+// taken from before, a second "rows" member, and rows moved or re-spaced.
+func TestDecodeSeen(t *testing.T) {
+	const head = `{"format":"gibbsheet-worksheet/1",`
+	docs := []string{
+		head + `"rows":[{"id":"a","equation":"ATP + H2O = ADP + Pi"},{"id":"b","equation":"G6P = F6P","times":2}]}`,
+		head + `"rows":[{"id":"a","equation":"ATP + H2O = ADP + Pi"},{"id":"b","equation":"G6P = F6P","times":3}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3},{"id":"a","equation":"ATP + H2O = ADP + Pi"}]}`,
+		head + `"rows":[ {"id":"b","equation":"G6P = F6P","times":3} ,{"id":"a","equation":"ATP + H2O = ADP + Pi","colour":"red"}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3},{"id":"a","equation":"ATP + H2O = ADP + Pi","colour":"red"}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3},{"id":"a","Equation":"ATP + H2O = ADP + Pi"}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3},{"id":"a","Equation":"ATP + H2O = ADP + Pi"}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3}],"rows":[{"note":"x"},{"id":"c","equation":"G6P = F6P","times":3}]}`,
+		head + `"Rows":[{"id":"b","equation":"G6P = F6P","times":3}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":"3"}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3}]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3},{"id":"b","equation":"G6P = F6P","times":3}]}`,
+		head + `"rows":[]}`,
+		head + `"rows":[{"id":"b","equation":"G6P = F6P","times":3}]}`,
+	}
+	var seen *rowsSeen
+	var prev *Worksheet
+	for i, doc := range docs {
+		want, wantUnknown, wantErr := Decode([]byte(doc))
+		got, gotUnknown, next, gotErr := decodeSeen([]byte(doc), seen)
+		if i == 1 && unsafe.StringData(got.Rows[0].Equation) != unsafe.StringData(prev.Rows[0].Equation) {
+			t.Error("document 1: the unchanged first row was decoded again, not taken from the one before")
+		}
+		if i == 6 && unsafe.StringData(got.Rows[1].Equation) == unsafe.StringData(prev.Rows[1].Equation) {
+			t.Error("document 6: a row with a misspelled member was taken from the one before")
+		}
+		prev = got
+		if (wantErr == nil) != (gotErr == nil) || wantErr != nil && wantErr.Error() != gotErr.Error() {
+			t.Fatalf("document %d: error %v, want %v", i, gotErr, wantErr)
+		}
+		if diff := cmp.Diff(want, got); diff != "" {
+			t.Errorf("document %d: (-Decode +with the rows seen before):\n%s", i, diff)
+		}
+		if diff := cmp.Diff(wantUnknown, gotUnknown); diff != "" {
+			t.Errorf("document %d: unknown fields (-Decode +with the rows seen before):\n%s", i, diff)
+		}
+		seen = next
 	}
 }

@@ -1,7 +1,6 @@
 package engine
 
 import (
-	"maps"
 	"math"
 	"slices"
 	"strings"
@@ -37,14 +36,17 @@ type evaluation struct {
 	conc        map[string]concentration // by reactant key
 	defc        concentration
 	res         *Result
-	uses        map[string]int // index into res.Compounds by reactant key
-	lastUse     []string       // by index into res.Compounds: the last row that used the compound
-	useRows     []useRef       // every row's uses of compounds, in order
-	context     string         // everything in the worksheet that a row's result depends on, but the rows
-	used        []stoich       // the reactants the row being computed names
-	named       []*compound    // the compounds the row being computed names, H+ included
-	prior       []*memoRow     // the rows of a Session's previous evaluation, under the same context
-	done        []*memoRow     // the rows computed or remembered, in order
+	uses        map[string]int  // index into res.Compounds by reactant key
+	lastUse     []int32         // by index into res.Compounds: 1 + the index of the last row that used it
+	useRows     []useRef        // every row's uses of compounds, in order
+	context     string          // everything in the worksheet that a row's result depends on, but the rows
+	used        []stoich        // the reactants the row being computed names
+	named       []*compound     // the compounds the row being computed names, H+ included
+	valued      map[string]bool // the compounds named that have an energy value (see valueTable.used)
+	prior       []*memoRow      // the rows of a Session's previous evaluation, under the same context
+	serial      uint64          // this evaluation's number, from 1 (see memoRow.made)
+	live        bool            // for a Session: the result's Rows stay empty (the encodings and done hold them)
+	done        []*memoRow      // the rows computed or remembered, in order
 }
 
 type concentration struct {
@@ -98,18 +100,30 @@ func (ev *evaluation) warnUnknown(fields []string) {
 	}
 }
 
+// valuedInContext lists the compounds the catalog holds before any row is read (those the concentrations,
+// values and bounds name) that have an energy value.
+func (ev *evaluation) valuedInContext() []string {
+	var out []string
+	for k := range ev.cat.compounds {
+		if _, ok := ev.values.byKey[k]; ok {
+			out = append(out, k)
+		}
+	}
+	return out
+}
+
 // setup is an evaluation as newEvaluation leaves it, kept by a Session to evaluate the next version of the
 // worksheet without reading its context again while the context stays the same.
 type setup struct {
 	ev       evaluation
-	warnings []Warning            // the context's warnings, without those about unknown fields
-	errors   []FieldError         // the context's errors
-	named    map[string]*compound // the catalog's compounds before any row named one
+	warnings []Warning    // the context's warnings, without those about unknown fields
+	errors   []FieldError // the context's errors
+	valued   []string     // the compounds the context names that have an energy value
 }
 
 func (ev *evaluation) setup(unknown int) *setup {
 	return &setup{ev: *ev, warnings: slices.Clone(ev.res.Warnings[unknown:]), errors: slices.Clone(ev.res.Errors),
-		named: maps.Clone(ev.cat.compounds)}
+		valued: ev.valuedInContext()}
 }
 
 // evaluation starts the evaluation of ws, whose context must be the setup's, as newEvaluation would.
@@ -117,15 +131,16 @@ func (s *setup) evaluation(ws *Worksheet, unknown []string) *evaluation {
 	ev := new(evaluation)
 	*ev = s.ev
 	ev.ws = ws
-	ev.res = &Result{Rows: make([]RowResult, 0, len(ws.Rows)), rowJSON: make([][]byte, 0, len(ws.Rows)),
+	ev.res = &Result{rowJSON: make([][]byte, 0, len(ws.Rows)),
 		Compounds: []CompoundUse{}, Warnings: []Warning{}, Conditions: s.ev.res.Conditions}
 	ev.uses = map[string]int{}
 	ev.warnUnknown(unknown)
 	ev.res.Warnings = append(ev.res.Warnings, s.warnings...)
 	ev.res.Errors = slices.Clone(s.errors)
-	cat := *s.ev.cat
-	cat.compounds = maps.Clone(s.named)
-	ev.cat = &cat
+	ev.valued = make(map[string]bool, len(s.valued)+8)
+	for _, k := range s.valued {
+		ev.valued[k] = true
+	}
 	return ev
 }
 
@@ -133,18 +148,27 @@ func (s *setup) evaluation(ws *Worksheet, unknown []string) *evaluation {
 // force. It returns the rows that can enter the analysis.
 func (ev *evaluation) evaluateRows() []computedRow {
 	ws, res := ev.ws, ev.res
+	ev.serial = serials.Add(1)
 	ev.checkRowIDs()
 	ev.useRows = make([]useRef, 0, 4*len(ws.Rows))
+	if ev.valued == nil {
+		ev.valued = map[string]bool{}
+		for _, k := range ev.valuedInContext() {
+			ev.valued[k] = true
+		}
+	}
 	var net netReaction
 	total := Total{DG0: new(float64), DG: new(float64)}
 	var incomplete []string
-	var computed []computedRow
+	computed := make([]computedRow, 0, len(ws.Rows))
 	ev.done = make([]*memoRow, 0, len(ws.Rows))
 	for i := range ws.Rows {
 		m := ev.row(i, &ws.Rows[i])
 		ev.done = append(ev.done, m)
 		row, nu := m.result, m.nu
-		res.Rows = append(res.Rows, row)
+		if !ev.live {
+			res.Rows = append(res.Rows, row)
+		}
 		res.rowJSON = append(res.rowJSON, m.json)
 		if nu == nil {
 			incomplete = append(incomplete, row.ID)
@@ -177,7 +201,7 @@ func (ev *evaluation) evaluateRows() []computedRow {
 	}
 	res.Total = total
 	ev.finishUses()
-	res.Values = ev.values.used(ev.cat)
+	res.Values = ev.values.used(ev.valued)
 	if len(res.Errors) == 0 {
 		res.Errors = nil
 	}

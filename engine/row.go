@@ -29,23 +29,26 @@ func (ev *evaluation) row(i int, in *Row) *memoRow {
 		m = ev.prior[i]
 	} else if m = rows.get(ev.context, key); m == nil {
 		ev.used, ev.named = nil, nil
-		m = &memoRow{key: key}
+		m = &memoRow{key: key, made: ev.serial}
 		m.result, m.nu = ev.computeRow(in)
 		if m.nu != nil {
 			ev.flux(&m.result, m.nu)
 		}
 		m.json = m.result.appendJSON(make([]byte, 0, sizeGuessRow))
-		m.used, m.named = ev.used, ev.named
+		m.used = ev.used
+		for _, c := range ev.named {
+			if _, ok := ev.values.byKey[c.key]; ok && !slices.Contains(m.valued, c.key) {
+				m.valued = append(m.valued, c.key)
+			}
+		}
 		rows.put(ev.context, key, m)
 	}
-	for _, c := range m.named {
-		if _, ok := ev.cat.compounds[c.key]; !ok {
-			ev.cat.compounds[c.key] = c
-		}
+	for _, k := range m.valued {
+		ev.valued[k] = true
 	}
 	for _, s := range m.used {
 		if s.coef != 0 && !s.r.isProton() {
-			ev.use(s.r, s.term, in.ID)
+			ev.use(s.r, s.term, i)
 		}
 	}
 	return m

@@ -2,6 +2,7 @@ package engine
 
 import (
 	"sync"
+	"sync/atomic"
 )
 
 // The page evaluates the whole worksheet on every keystroke, and a keystroke changes one row or one
@@ -27,6 +28,9 @@ type rowKey struct {
 	hasTimes, hasDG0 bool
 }
 
+// serials numbers evaluations, for memoRow.made.
+var serials atomic.Uint64
+
 func rowKeyOf(r *Row) rowKey {
 	k := rowKey{id: r.ID, equation: r.Equation}
 	if r.Times != nil {
@@ -40,11 +44,12 @@ func rowKeyOf(r *Row) rowKey {
 
 type memoRow struct {
 	key    rowKey
+	made   uint64 // the serial of the evaluation that computed it: a row made there is in no earlier result
 	result RowResult
-	json   []byte      // result as AppendJSON writes it; never changed once made
-	nu     []stoich    // nil when the row cannot enter the totals
-	used   []stoich    // the reactants the row names, replayed into the result's list of compounds
-	named  []*compound // the compounds it names, H+ included, which decide the values listed
+	json   []byte   // result as AppendJSON writes it; never changed once made
+	nu     []stoich // nil when the row cannot enter the totals
+	used   []stoich // the reactants the row names, replayed into the result's list of compounds
+	valued []string // the compounds it names, H+ included, that have an energy value: those are listed
 }
 
 func (c *rowMemo) get(context string, k rowKey) *memoRow {

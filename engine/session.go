@@ -26,6 +26,7 @@ type Session struct {
 	rows     [][]byte    // the latest answer's rows, encoded
 	ev       *evaluation // the latest answer's
 	setup    *setup      // the latest context's, read once for the answers that share it
+	seen     *rowsSeen   // the latest worksheet's rows as read, to read the next one faster
 	computed []computedRow
 
 	analysed struct { // the latest analysis, kept while its worksheet's context and rows stay the same
@@ -42,12 +43,13 @@ type Session struct {
 //
 // with the fields of the result document, less "mdf". A row given as a number i is row i of the answer
 // numbered b, which is base when base is the session's latest answer and 0 (no row given by number)
-// otherwise. Errors are EvaluateJSON's; after one the session's latest answer stays what it was.
+// otherwise. Errors are EvaluateJSON's; after one the session's latest answer stays what it was. The
+// session keeps worksheet to read the next version faster: the caller must not change it afterwards.
 func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error) {
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	defer recoverEngine(&out, &err, s.reset)
-	ws, unknown, err := Decode(worksheet)
+	ws, unknown, seen, err := decodeSeen(worksheet, s.seen)
 	if err != nil {
 		return nil, err
 	}
@@ -59,13 +61,14 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 		ev = newEvaluation(compounds.Builtin(), ws, unknown)
 		s.setup = ev.setup(len(unknown))
 	}
+	ev.live = true
 	computed := ev.evaluateRows()
 	res := ev.res
 	if base != s.seq || base == 0 {
 		base = 0
 	}
 	var prev map[*byte]int // the previous rows by where their encoding lies, made when first needed
-	size := sizeGuessBase + 64*len(res.Rows) + sizeGuessCompound*len(res.Compounds)
+	size := sizeGuessBase + 64*len(ws.Rows) + sizeGuessCompound*len(res.Compounds)
 	for i := range res.Compounds {
 		size += 8 * len(res.Compounds[i].Rows)
 	}
@@ -82,6 +85,10 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 		if base != 0 {
 			if i < len(s.rows) && bytes.Equal(s.rows[i], enc) {
 				dst = strconv.AppendInt(dst, int64(i), 10)
+				continue
+			}
+			if ev.done[i].made == ev.serial {
+				dst = append(dst, enc...) // computed just now; the address map below finds only remembered rows
 				continue
 			}
 			// A row moved elsewhere is the same remembered row, so its encoding lies at the same address.
@@ -103,7 +110,7 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 
 	s.seq++
 	ev.prior = nil
-	s.rows, s.ev, s.computed = res.rowJSON, ev, computed
+	s.rows, s.ev, s.computed, s.seen = res.rowJSON, ev, computed, seen
 	return dst, nil
 }
 
@@ -145,6 +152,6 @@ func (s *Session) AnalysisJSON() (out []byte, err error) {
 // reset forgets the latest answer, after a failure of the engine left it in doubt.
 func (s *Session) reset() {
 	s.seq++
-	s.rows, s.ev, s.computed, s.setup = nil, nil, nil, nil
+	s.rows, s.ev, s.computed, s.setup, s.seen = nil, nil, nil, nil, nil
 	s.analysed.body = nil
 }

@@ -8,22 +8,21 @@ import (
 
 // use records that a row uses a compound, for the result's list of compounds and their concentrations.
 // The compound's list of rows is filled by finishUses.
-func (ev *evaluation) use(r *reactant, t equation.Term, rowID string) {
+func (ev *evaluation) use(r *reactant, t equation.Term, row int) {
 	i, ok := ev.uses[r.key]
 	if !ok {
 		i = ev.newUse(r, t)
 	}
-	if ev.lastUse[i] != rowID {
-		ev.lastUse[i] = rowID
-		ev.useRows = append(ev.useRows, useRef{compound: i, row: rowID})
+	// A row is listed once per compound, as are consecutive rows with the same id.
+	if last := ev.lastUse[i] - 1; last < 0 || ev.ws.Rows[last].ID != ev.ws.Rows[row].ID {
+		ev.lastUse[i] = int32(row) + 1
+		ev.useRows = append(ev.useRows, useRef{compound: int32(i), row: int32(row)})
 	}
 }
 
-// useRef is one row's use of the compound at index compound of the result's list.
-type useRef struct {
-	compound int
-	row      string
-}
+// useRef is the use by the row at index row of the worksheet of the compound at index compound of the
+// result's list (numbers, not names, so that the garbage collector has nothing to look at).
+type useRef struct{ compound, row int32 }
 
 // finishUses gives every compound of the result its list of rows, all in one backing array: appending
 // to a list per compound is much of an evaluation's time in WebAssembly.
@@ -41,7 +40,7 @@ func (ev *evaluation) finishUses() {
 	}
 	for _, u := range ev.useRows {
 		c := &list[u.compound]
-		c.Rows = append(c.Rows, u.row)
+		c.Rows = append(c.Rows, ev.ws.Rows[u.row].ID)
 	}
 }
 
@@ -52,7 +51,7 @@ func (ev *evaluation) newUse(r *reactant, t equation.Term) int {
 	}
 	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name + tagOf(t.Compartment), Name: r.name,
 		Compartment: r.comp.id, Approximation: r.approx})
-	ev.lastUse = append(ev.lastUse, "")
+	ev.lastUse = append(ev.lastUse, 0)
 	u := &ev.res.Compounds[len(ev.res.Compounds)-1]
 	if r.lib != nil {
 		u.Library = r.lib.ID

@@ -93,7 +93,27 @@ var ErrFormat = errors.New("not a Gibbsheet worksheet")
 // The reading is encoding/json's (see decode.go), and so is what is reported first: an error in the JSON
 // syntax, then a wrong or missing format, then a field of the wrong type.
 func Decode(data []byte) (*Worksheet, []string, error) {
-	d := decoder{data: data}
+	return decodeWith(&decoder{data: data})
+}
+
+// decodeSeen is Decode taking the rows whose text is unchanged from seen, the rows of the document read
+// before (nil for none); it returns what to pass for the next document, which keeps data: the caller must
+// not change it afterwards.
+func decodeSeen(data []byte, seen *rowsSeen) (*Worksheet, []string, *rowsSeen, error) {
+	d := &decoder{data: data, seen: seen}
+	ws, unknown, err := decodeWith(d)
+	if err != nil {
+		return nil, nil, seen, err
+	}
+	d.next.text, d.next.rows = data, ws.Rows
+	if d.rowLists > 1 {
+		d.next.spans = nil // the later list changed rows the spans were read for
+	}
+	return ws, unknown, &d.next, nil
+}
+
+func decodeWith(d *decoder) (*Worksheet, []string, error) {
+	data := d.data
 	ws, err := d.document()
 	if err != nil {
 		return nil, nil, err

@@ -65,9 +65,10 @@
     // let it build one from text (wasm/page/main.go, throwing).
     globalThis.gibbsheetThrowing ??= (f) => (...args) => { const r = f(...args); if (r instanceof Error) throw r; return r; };
     const go = new Go();
-    // The engine makes short-lived garbage on every keystroke; collecting when the heap has grown fivefold
-    // instead of twofold halves a recompute in WebAssembly, where the collector is slow, for a few MB more.
-    go.env = { GOGC: "400" };
+    // The engine makes short-lived garbage on every keystroke and WebAssembly's collector is slow: it
+    // collects when the heap has grown elevenfold instead of twofold (a quarter off a recompute, for some
+    // tens of MB), and more often only as it nears 256 MiB.
+    go.env = { GOGC: "1000", GOMEMLIMIT: "256MiB" };
     let instance;
     try {
       ({ instance } = await WebAssembly.instantiateStreaming(wasm(), go.importObject));
