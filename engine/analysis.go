@@ -135,7 +135,7 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 		return nil
 	}
 	p := &mdf.Problem{RT: ev.rt, Reactions: make([]mdf.Reaction, 0, len(rows))}
-	index := map[string]int{}
+	index := make(map[string]int, 32)
 	var compounds []*stoich
 	used := make([]computedRow, 0, len(rows))
 	terms := 0

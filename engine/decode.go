@@ -633,6 +633,9 @@ func (d *decoder) worksheet(ws *Worksheet) {
 			d.bounds(ws.Bounds, collect)
 		case "rows":
 			d.rowLists++
+			if ws.Rows == nil && d.seen != nil {
+				ws.Rows = make([]Row, 0, len(d.seen.rows)+8) // the room the list will likely take
+			}
 			decodeList(d, &ws.Rows, func(d *decoder, r *Row) { d.rowOrSeen(r, collect) })
 		default:
 			d.skipValue()

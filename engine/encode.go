@@ -34,7 +34,18 @@ func (r *Result) appendAfterRows(dst []byte, withMDF bool) []byte {
 	dst = append(dst, `,"total":`...)
 	dst = r.Total.appendJSON(dst)
 	dst = append(dst, `,"compounds":`...)
-	dst = appendJSONSlice(dst, r.Compounds, (*CompoundUse).appendJSON)
+	if r.useHeads != nil && len(r.useHeads) == len(r.Compounds) {
+		dst = append(dst, '[')
+		for i := range r.Compounds {
+			if i > 0 {
+				dst = append(dst, ',')
+			}
+			dst = r.Compounds[i].appendJSONRows(append(dst, r.useHeads[i]...))
+		}
+		dst = append(dst, ']')
+	} else {
+		dst = appendJSONSlice(dst, r.Compounds, (*CompoundUse).appendJSON)
+	}
 	dst = append(dst, `,"values":`...)
 	dst = appendJSONValues(dst, r.Values)
 	dst = append(dst, `,"conditions":`...)
@@ -222,6 +233,12 @@ func (t *Total) appendJSON(dst []byte) []byte {
 }
 
 func (c *CompoundUse) appendJSON(dst []byte) []byte {
+	return c.appendJSONRows(c.appendJSONHead(dst))
+}
+
+// appendJSONHead writes the compound's object up to its "rows" member, which ends it (appendJSONRows);
+// a Session keeps the head of each compound of its worksheet's context.
+func (c *CompoundUse) appendJSONHead(dst []byte) []byte {
 	dst = append(dst, `{"id":`...)
 	dst = appendJSONString(dst, c.ID)
 	dst = append(dst, `,"compartment":`...)
@@ -248,7 +265,10 @@ func (c *CompoundUse) appendJSON(dst []byte) []byte {
 		dst = append(dst, `,"approximation":`...)
 		dst = appendJSONString(dst, c.Approximation)
 	}
-	dst = append(dst, `,"rows":`...)
+	return append(dst, `,"rows":`...)
+}
+
+func (c *CompoundUse) appendJSONRows(dst []byte) []byte {
 	dst = appendJSONSlice(dst, c.Rows, appendJSONStringAt)
 	return append(dst, '}')
 }

@@ -36,17 +36,20 @@ type evaluation struct {
 	conc        map[string]concentration // by reactant key
 	defc        concentration
 	res         *Result
-	uses        map[string]int  // index into res.Compounds by reactant key
-	lastUse     []int32         // by index into res.Compounds: 1 + the index of the last row that used it
-	useRows     []useRef        // every row's uses of compounds, in order
-	context     string          // everything in the worksheet that a row's result depends on, but the rows
-	used        []stoich        // the reactants the row being computed names
-	named       []*compound     // the compounds the row being computed names, H+ included
-	valued      map[string]bool // the compounds named that have an energy value (see valueTable.used)
-	prior       []*memoRow      // the rows of a Session's previous evaluation, under the same context
-	serial      uint64          // this evaluation's number, from 1 (see memoRow.made)
-	live        bool            // for a Session: the result's Rows stay empty (the encodings and done hold them)
-	done        []*memoRow      // the rows computed or remembered, in order
+	uses        map[string]int       // index into res.Compounds by reactant key
+	lastUse     []int32              // by index into res.Compounds: 1 + the index of the last row that used it
+	useRows     []useRef             // every row's uses of compounds, in order
+	context     string               // everything in the worksheet that a row's result depends on, but the rows
+	used        []stoich             // the reactants the row being computed names
+	named       []*compound          // the compounds the row being computed names, H+ included
+	valued      map[string]bool      // the compounds named that have an energy value (see valueTable.used)
+	prior       []*memoRow           // the rows of a Session's previous evaluation, under the same context
+	priorEv     *evaluation          // that evaluation
+	idErrors    []FieldError         // the errors about the rows' ids
+	serial      uint64               // this evaluation's number, from 1 (see memoRow.made)
+	live        bool                 // for a Session: the result's Rows stay empty (the encodings and done hold them)
+	heads       map[headKey]*useHead // for a Session: the compounds' entries under this context
+	done        []*memoRow           // the rows computed or remembered, in order
 }
 
 type concentration struct {
@@ -72,7 +75,7 @@ func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Resu
 func newEvaluation(lib *compounds.Library, ws *Worksheet, unknown []string) *evaluation {
 	res := &Result{Rows: make([]RowResult, 0, len(ws.Rows)), rowJSON: make([][]byte, 0, len(ws.Rows)),
 		Compounds: []CompoundUse{}, Warnings: []Warning{}}
-	ev := &evaluation{ws: ws, res: res, uses: map[string]int{}}
+	ev := &evaluation{ws: ws, res: res, uses: make(map[string]int, 32)}
 	ev.warnUnknown(unknown)
 	cond, warns, errs := readConditions(ws.Conditions)
 	ev.cond, ev.condOK = cond, errs == nil
@@ -122,6 +125,7 @@ type setup struct {
 }
 
 func (ev *evaluation) setup(unknown int) *setup {
+	ev.heads = map[headKey]*useHead{}
 	return &setup{ev: *ev, warnings: slices.Clone(ev.res.Warnings[unknown:]), errors: slices.Clone(ev.res.Errors),
 		valued: ev.valuedInContext()}
 }
@@ -133,7 +137,7 @@ func (s *setup) evaluation(ws *Worksheet, unknown []string) *evaluation {
 	ev.ws = ws
 	ev.res = &Result{rowJSON: make([][]byte, 0, len(ws.Rows)),
 		Compounds: []CompoundUse{}, Warnings: []Warning{}, Conditions: s.ev.res.Conditions}
-	ev.uses = map[string]int{}
+	ev.uses = make(map[string]int, 32)
 	ev.warnUnknown(unknown)
 	ev.res.Warnings = append(ev.res.Warnings, s.warnings...)
 	ev.res.Errors = slices.Clone(s.errors)
@@ -149,10 +153,10 @@ func (s *setup) evaluation(ws *Worksheet, unknown []string) *evaluation {
 func (ev *evaluation) evaluateRows() []computedRow {
 	ws, res := ev.ws, ev.res
 	ev.serial = serials.Add(1)
-	ev.checkRowIDs()
+	ev.checkRowIDs(ev.priorEv)
 	ev.useRows = make([]useRef, 0, 4*len(ws.Rows))
 	if ev.valued == nil {
-		ev.valued = map[string]bool{}
+		ev.valued = make(map[string]bool, 16)
 		for _, k := range ev.valuedInContext() {
 			ev.valued[k] = true
 		}
@@ -302,7 +306,24 @@ func (ev *evaluation) concentrationOf(r *reactant) (concentration, bool) {
 	return ev.defc, false
 }
 
-func (ev *evaluation) checkRowIDs() {
+// checkRowIDs reports rows without an id or with one used before. When the rows' ids are those of the
+// previous evaluation of a Session, its findings are taken again.
+func (ev *evaluation) checkRowIDs(prior *evaluation) {
+	if prior != nil && len(prior.done) == len(ev.ws.Rows) {
+		same := true
+		for i := range ev.ws.Rows {
+			if prior.done[i].key.id != ev.ws.Rows[i].ID {
+				same = false
+				break
+			}
+		}
+		if same {
+			ev.idErrors = prior.idErrors
+			ev.res.Errors = append(ev.res.Errors, ev.idErrors...)
+			return
+		}
+	}
+	n := len(ev.res.Errors)
 	seen := make(map[string]bool, len(ev.ws.Rows))
 	for i, row := range ev.ws.Rows {
 		switch {
@@ -313,6 +334,7 @@ func (ev *evaluation) checkRowIDs() {
 		}
 		seen[row.ID] = true
 	}
+	ev.idErrors = slices.Clip(ev.res.Errors[n:])
 }
 
 // rowErrors converts the parser's errors to row errors with character columns.

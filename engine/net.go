@@ -13,8 +13,8 @@ import (
 // multipliers far beyond any real pathway) carries on in float64 and is printed rounded. Compounds keep the
 // order in which they first appear.
 type netReaction struct {
-	order []string
-	coef  map[string]*netCoef
+	coefs []netCoef      // in order of first appearance
+	index map[string]int // into coefs, by reactant key
 }
 
 type netCoef struct {
@@ -25,20 +25,22 @@ type netCoef struct {
 }
 
 func (n *netReaction) add(nu []stoich, times float64) {
-	if n.coef == nil {
-		n.coef = map[string]*netCoef{}
+	if n.index == nil {
+		n.index = make(map[string]int, 32)
+		n.coefs = make([]netCoef, 0, 32)
 	}
 	t, tOK := equation.Rat{Num: int64(times), Den: 1}, true
 	if times != math.Trunc(times) || math.Abs(times) > 1<<53 {
 		t, tOK = equation.RatFromFloat(times)
 	}
 	for _, s := range nu {
-		c, ok := n.coef[s.key]
+		i, ok := n.index[s.key]
 		if !ok {
-			c = &netCoef{term: s.term}
-			n.coef[s.key] = c
-			n.order = append(n.order, s.key)
+			i = len(n.coefs)
+			n.index[s.key] = i
+			n.coefs = append(n.coefs, netCoef{term: s.term})
 		}
+		c := &n.coefs[i]
 		c.approx += s.coef * times
 		if c.inexact || !tOK {
 			c.inexact = true
@@ -60,8 +62,8 @@ func (n *netReaction) add(nu []stoich, times float64) {
 func (n *netReaction) String() string {
 	var eq equation.Equation
 	huge := false
-	for _, key := range n.order {
-		c := n.coef[key]
+	for i := range n.coefs {
+		c := &n.coefs[i]
 		r := c.exact
 		if c.inexact {
 			var ok bool
@@ -93,8 +95,8 @@ func (n *netReaction) String() string {
 // plainString prints the net reaction from the float sums, for coefficients beyond the normal form.
 func (n *netReaction) plainString() string {
 	var left, right []string
-	for _, key := range n.order {
-		c := n.coef[key]
+	for i := range n.coefs {
+		c := &n.coefs[i]
 		x := c.exact.Float()
 		if c.inexact {
 			x = c.approx

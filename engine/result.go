@@ -14,6 +14,8 @@ type Result struct {
 	// rowJSON holds each row's encoding, made when the row was computed; AppendJSON writes these rather
 	// than encoding Rows again. A Result is not to be changed once Evaluate has returned it.
 	rowJSON [][]byte
+	// useHeads, when set, holds each compound's encoding up to its rows (CompoundUse.appendJSONHead).
+	useHeads [][]byte
 }
 
 // Status of a row at the entered concentrations.

@@ -56,7 +56,7 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 	var ev *evaluation
 	if context := contextKey(ws); s.setup != nil && s.setup.ev.context == context {
 		ev = s.setup.evaluation(ws, unknown)
-		ev.prior = s.ev.done
+		ev.prior, ev.priorEv = s.ev.done, s.ev
 	} else {
 		ev = newEvaluation(compounds.Builtin(), ws, unknown)
 		s.setup = ev.setup(len(unknown))
@@ -67,8 +67,36 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 	if base != s.seq || base == 0 {
 		base = 0
 	}
+	// Each row is either the index of the same row in the previous answer or, -1, written out.
+	refs := make([]int, len(res.rowJSON))
+	size := sizeGuessBase + sizeGuessCompound*len(res.Compounds)
 	var prev map[*byte]int // the previous rows by where their encoding lies, made when first needed
-	size := sizeGuessBase + 64*len(ws.Rows) + sizeGuessCompound*len(res.Compounds)
+	for i, enc := range res.rowJSON {
+		refs[i] = -1
+		switch {
+		case base == 0:
+		case i < len(s.rows) && bytes.Equal(s.rows[i], enc):
+			refs[i] = i
+		case ev.done[i].made == ev.serial:
+			// computed just now; the address map below finds only remembered rows
+		default:
+			// A row moved elsewhere is the same remembered row, so its encoding lies at the same address.
+			if prev == nil {
+				prev = make(map[*byte]int, len(s.rows))
+				for j := len(s.rows) - 1; j >= 0; j-- {
+					prev[&s.rows[j][0]] = j
+				}
+			}
+			if j, ok := prev[&enc[0]]; ok {
+				refs[i] = j
+			}
+		}
+		if refs[i] < 0 {
+			size += len(enc) + 1
+		} else {
+			size += 8
+		}
+	}
 	for i := range res.Compounds {
 		size += 8 * len(res.Compounds[i].Rows)
 	}
@@ -82,34 +110,17 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 		if i > 0 {
 			dst = append(dst, ',')
 		}
-		if base != 0 {
-			if i < len(s.rows) && bytes.Equal(s.rows[i], enc) {
-				dst = strconv.AppendInt(dst, int64(i), 10)
-				continue
-			}
-			if ev.done[i].made == ev.serial {
-				dst = append(dst, enc...) // computed just now; the address map below finds only remembered rows
-				continue
-			}
-			// A row moved elsewhere is the same remembered row, so its encoding lies at the same address.
-			if prev == nil {
-				prev = make(map[*byte]int, len(s.rows))
-				for j := len(s.rows) - 1; j >= 0; j-- {
-					prev[&s.rows[j][0]] = j
-				}
-			}
-			if j, ok := prev[&enc[0]]; ok {
-				dst = strconv.AppendInt(dst, int64(j), 10)
-				continue
-			}
+		if refs[i] >= 0 {
+			dst = strconv.AppendInt(dst, int64(refs[i]), 10)
+		} else {
+			dst = append(dst, enc...)
 		}
-		dst = append(dst, enc...)
 	}
 	dst = append(dst, ']')
 	dst = res.appendAfterRows(dst, false)
 
 	s.seq++
-	ev.prior = nil
+	ev.prior, ev.priorEv = nil, nil
 	s.rows, s.ev, s.computed, s.seen = res.rowJSON, ev, computed, seen
 	return dst, nil
 }

@@ -33,6 +33,9 @@ var sessionEdits = []struct {
 	}},
 	{"a row deleted", func(ws *Worksheet) { ws.Rows = ws.Rows[1:] }},
 	{"the title", func(ws *Worksheet) { ws.Title += " (copy)" }},
+	{"an id used twice", func(ws *Worksheet) { ws.Rows[1].ID = ws.Rows[0].ID }},
+	{"the title again", func(ws *Worksheet) { ws.Title += " (2)" }},
+	{"an empty id", func(ws *Worksheet) { ws.Rows[1].ID = "" }},
 }
 
 func cloneMap(m map[string]string) map[string]string {

@@ -49,10 +49,40 @@ func (ev *evaluation) newUse(r *reactant, t equation.Term) int {
 		// Room for a pathway's compounds at once: growing a slice of these structs is dear in WebAssembly.
 		ev.res.Compounds = slices.Grow(ev.res.Compounds, 32+len(ev.res.Compounds))
 	}
-	ev.res.Compounds = append(ev.res.Compounds, CompoundUse{ID: t.Name + tagOf(t.Compartment), Name: r.name,
-		Compartment: r.comp.id, Approximation: r.approx})
 	ev.lastUse = append(ev.lastUse, 0)
-	u := &ev.res.Compounds[len(ev.res.Compounds)-1]
+	i := len(ev.res.Compounds)
+	ev.uses[r.key] = i
+	if ev.heads == nil {
+		ev.res.Compounds = append(ev.res.Compounds, ev.compoundUse(r, t))
+		return i
+	}
+	// In a Session, a compound's entry but for its rows is made once for the context.
+	k := headKey{r.key, t.Name, t.Compartment}
+	h, ok := ev.heads[k]
+	if !ok {
+		h = &useHead{use: ev.compoundUse(r, t)}
+		h.json = h.use.appendJSONHead(nil)
+		ev.heads[k] = h
+	}
+	ev.res.Compounds = append(ev.res.Compounds, h.use)
+	ev.res.useHeads = append(ev.res.useHeads, h.json)
+	return i
+}
+
+// headKey names a compound's entry in the result: the reactant, and its name as first written.
+type headKey struct{ reactant, name, compartment string }
+
+// useHead is a compound's entry, without its rows, and its encoding up to them.
+type useHead struct {
+	use  CompoundUse
+	json []byte
+}
+
+// compoundUse is the compound's entry in the result's list, without its rows.
+func (ev *evaluation) compoundUse(r *reactant, t equation.Term) CompoundUse {
+	use := CompoundUse{ID: t.Name + tagOf(t.Compartment), Name: r.name, Compartment: r.comp.id,
+		Approximation: r.approx}
+	u := &use
 	if r.lib != nil {
 		u.Library = r.lib.ID
 	} else {
@@ -72,9 +102,7 @@ func (ev *evaluation) newUse(r *reactant, t equation.Term) int {
 			u.Concentration = &m
 		}
 	}
-	i := len(ev.res.Compounds) - 1
-	ev.uses[r.key] = i
-	return i
+	return use
 }
 
 func tagOf(compartment string) string {
