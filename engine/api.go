@@ -2,6 +2,7 @@ package engine
 
 import (
 	"errors"
+	"slices"
 
 	"gibbsheet/engine/compounds"
 	"gibbsheet/engine/internal/say"
@@ -12,6 +13,25 @@ import (
 // unsupported format); everything wrong inside a row is reported in that row, and wrong field values in the
 // result's errors. It does not panic: a failure of the engine itself comes back as an error too.
 func EvaluateJSON(worksheet []byte) (out []byte, err error) {
+	if !shared.mu.TryLock() {
+		return evaluateFresh(worksheet) // another goroutine holds the worksheet kept
+	}
+	defer shared.mu.Unlock()
+	defer recoverEngine(&out, &err, shared.reset)
+	ev, err := shared.evaluate(slices.Clone(worksheet))
+	if err != nil {
+		return nil, err
+	}
+	ev.analyse(shared.computed)
+	return ev.res.AppendJSON(nil), nil
+}
+
+// shared keeps the last worksheet EvaluateJSON read, so that reading the next version of it, as when
+// someone edits it, reuses its context and its unchanged rows (see Session).
+var shared Session
+
+// evaluateFresh is EvaluateJSON with nothing kept from earlier worksheets but the remembered rows.
+func evaluateFresh(worksheet []byte) (out []byte, err error) {
 	defer recoverEngine(&out, &err, nil)
 	ws, unknown, err := Decode(worksheet)
 	if err != nil {

@@ -29,7 +29,8 @@ func benchSheet(n int) []byte {
 	return []byte(sheet(`"concentrations":{"ATP":"5 mM","ADP":"0.5 mM","Pi":"3 mM","NAD+":"1 mM","NADH":"0.05 mM"}`, eqs...))
 }
 
-// BenchmarkEvaluateJSON: "cold" forgets remembered rows and equations before every evaluation; "keystroke"
+// BenchmarkEvaluateJSON: "cold" forgets remembered rows and equations, and the worksheet kept from the last
+// call, before every evaluation; "keystroke"
 // changes one row's multiplier between evaluations, as typing in the page does, so the other rows come from
 // memory (see rowMemo).
 func BenchmarkEvaluateJSON(b *testing.B) {
@@ -40,6 +41,7 @@ func BenchmarkEvaluateJSON(b *testing.B) {
 			for b.Loop() {
 				rows = &rowMemo{}
 				parsed = newMemo[parseOutcome](4096)
+				shared = Session{}
 				if _, err := EvaluateJSON(doc); err != nil {
 					b.Fatal(err)
 				}

@@ -23,7 +23,14 @@ func (r *Result) AppendJSON(dst []byte) []byte {
 	if r == nil {
 		return append(dst, "null"...)
 	}
-	dst = slices.Grow(dst, sizeGuessBase+sizeGuessRow*len(r.Rows)+sizeGuessCompound*len(r.Compounds))
+	size := sizeGuessBase + sizeGuessRow*len(r.Rows) + sizeGuessCompound*len(r.Compounds)
+	if r.rowJSON != nil {
+		size = sizeGuessBase + sizeGuessMDFRow*len(r.rowJSON) + sizeGuessCompound*len(r.Compounds)
+		for _, enc := range r.rowJSON {
+			size += len(enc) + 1
+		}
+	}
+	dst = slices.Grow(dst, size)
 	dst = append(dst, `{"rows":`...)
 	dst = r.appendRows(dst)
 	return r.appendAfterRows(dst, true)
@@ -67,9 +74,10 @@ func (r *Result) appendAfterRows(dst []byte, withMDF bool) []byte {
 	return append(dst, '}')
 }
 
-// appendRows writes the rows, from the encodings made during evaluation where there are any.
+// appendRows writes the rows, from the encodings made during evaluation where there are any (a Session's
+// results hold only those).
 func (r *Result) appendRows(dst []byte) []byte {
-	if r.rowJSON == nil || len(r.rowJSON) != len(r.Rows) {
+	if r.rowJSON == nil || len(r.Rows) != 0 && len(r.rowJSON) != len(r.Rows) {
 		return appendJSONSlice(dst, r.Rows, (*RowResult).appendJSON)
 	}
 	dst = append(dst, '[')
@@ -89,6 +97,7 @@ const (
 	sizeGuessBase     = 2048
 	sizeGuessRow      = 1152
 	sizeGuessCompound = 256
+	sizeGuessMDFRow   = 128 // a row's entry in the MDF
 )
 
 func (r *RowResult) appendJSON(dst []byte) []byte {

@@ -41,7 +41,7 @@ func TestRowMemo(t *testing.T) {
 				t.Fatal(err)
 			}
 			rows = &rowMemo{}
-			fresh, _ := EvaluateJSON(b)
+			fresh, _ := evaluateFresh(b)
 			if !bytes.Equal(remembered, fresh) {
 				t.Errorf("%s edit: result with remembered rows differs from a fresh evaluation", edit)
 			}

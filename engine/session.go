@@ -49,20 +49,11 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	defer recoverEngine(&out, &err, s.reset)
-	ws, unknown, seen, err := decodeSeen(worksheet, s.seen)
+	prevRows := s.rows
+	ev, err := s.evaluate(worksheet)
 	if err != nil {
 		return nil, err
 	}
-	var ev *evaluation
-	if context := contextKey(ws); s.setup != nil && s.setup.ev.context == context {
-		ev = s.setup.evaluation(ws, unknown)
-		ev.prior, ev.priorEv = s.ev.done, s.ev
-	} else {
-		ev = newEvaluation(compounds.Builtin(), ws, unknown)
-		s.setup = ev.setup(len(unknown))
-	}
-	ev.live = true
-	computed := ev.evaluateRows()
 	res := ev.res
 	if base != s.seq || base == 0 {
 		base = 0
@@ -75,16 +66,16 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 		refs[i] = -1
 		switch {
 		case base == 0:
-		case i < len(s.rows) && bytes.Equal(s.rows[i], enc):
+		case i < len(prevRows) && bytes.Equal(prevRows[i], enc):
 			refs[i] = i
 		case ev.done[i].made == ev.serial:
 			// computed just now; the address map below finds only remembered rows
 		default:
 			// A row moved elsewhere is the same remembered row, so its encoding lies at the same address.
 			if prev == nil {
-				prev = make(map[*byte]int, len(s.rows))
-				for j := len(s.rows) - 1; j >= 0; j-- {
-					prev[&s.rows[j][0]] = j
+				prev = make(map[*byte]int, len(prevRows))
+				for j := len(prevRows) - 1; j >= 0; j-- {
+					prev[&prevRows[j][0]] = j
 				}
 			}
 			if j, ok := prev[&enc[0]]; ok {
@@ -120,9 +111,31 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 	dst = res.appendAfterRows(dst, false)
 
 	s.seq++
-	ev.prior, ev.priorEv = nil, nil
-	s.rows, s.ev, s.computed, s.seen = res.rowJSON, ev, computed, seen
+	s.rows = res.rowJSON
 	return dst, nil
+}
+
+// evaluate reads the worksheet and computes its rows and totals, using what the session kept of the
+// worksheet before: its context, if unchanged, the rows at the same place, and the text of its rows. The
+// new evaluation becomes the session's latest; after an error the session is as it was.
+func (s *Session) evaluate(worksheet []byte) (*evaluation, error) {
+	ws, unknown, seen, err := decodeSeen(worksheet, s.seen)
+	if err != nil {
+		return nil, err
+	}
+	var ev *evaluation
+	if context := contextKey(ws); s.setup != nil && s.setup.ev.context == context {
+		ev = s.setup.evaluation(ws, unknown)
+		ev.prior, ev.priorEv = s.ev.done, s.ev
+	} else {
+		ev = newEvaluation(compounds.Builtin(), ws, unknown)
+		s.setup = ev.setup(len(unknown))
+	}
+	ev.live = true
+	s.computed = ev.evaluateRows()
+	ev.prior, ev.priorEv = nil, nil
+	s.ev, s.seen = ev, seen
+	return ev, nil
 }
 
 // AnalysisJSON returns the max-min driving force of the latest answer and the warnings that come with it:

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"bytes"
 	"encoding/json"
 	"strings"
 	"testing"
@@ -77,7 +78,8 @@ func mergeChanges(t *testing.T, prev map[string]any, changes, analysis []byte) m
 }
 
 // TestSessionMatchesEvaluate: merging a session's changes and analysis into the previous answer gives the
-// document EvaluateJSON gives, after every edit of every worksheet; rows that did not change come back as
+// document a fresh evaluation gives, and so does EvaluateJSON (which keeps the worksheet it read last), byte
+// for byte, after every edit of every worksheet; rows that did not change come back as
 // numbers; a failed call leaves the session where it was, and a base that is not the latest answer gets
 // every row written out.
 func TestSessionMatchesEvaluate(t *testing.T) {
@@ -109,9 +111,12 @@ func TestSessionMatchesEvaluate(t *testing.T) {
 				t.Fatalf("%s: %v", e.name, err)
 			}
 			merged = mergeChanges(t, merged, changes, analysis)
-			full, _ := EvaluateJSON(text)
+			full, _ := evaluateFresh(text)
 			var want map[string]any
 			json.Unmarshal(full, &want)
+			if kept, _ := EvaluateJSON(text); !bytes.Equal(kept, full) {
+				t.Fatalf("%s: EvaluateJSON with the worksheet kept from the last call differs from a fresh evaluation", e.name)
+			}
 			if diff := cmp.Diff(want, merged); diff != "" {
 				t.Fatalf("%s: merged changes differ from EvaluateJSON (-want +got):\n%s", e.name, diff)
 			}
