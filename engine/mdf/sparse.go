@@ -27,6 +27,11 @@ func newSparseLP(p *Problem) *sparseLP {
 	m, n := len(p.Reactions), len(p.Lower)
 	s := &sparseLP{m: m, n: n, b: make([]float64, m), lo: p.Lower, up: p.Upper}
 	s.rowStart = make([]int, m+1)
+	terms := 0
+	for j := range p.Reactions {
+		terms += len(p.Reactions[j].Compound)
+	}
+	s.rowCmp, s.rowVal = make([]int, 0, terms), make([]float64, 0, terms)
 	pos := make([]int, n) // position of compound i in the current row, plus 1
 	for j := range p.Reactions {
 		r := &p.Reactions[j]
