@@ -55,15 +55,9 @@ func recoverEngine(out *[]byte, err *error, cleanup func()) {
 
 var errNoAnswer = errors.New("there is no worksheet to analyse yet: evaluate one first")
 
-// LibraryEntry is what the page needs of a library compound for completion and display.
-type LibraryEntry struct {
-	ID          string   `json:"id"`
-	Name        string   `json:"name"`
-	Synonyms    []string `json:"synonyms,omitempty"`
-	Formula     string   `json:"formula"`
-	Approximate bool     `json:"approximate,omitempty"`
-	Source      string   `json:"source"`
-}
+// LibraryEntry is what the page needs of a library compound for completion and display; CompoundsJSON is
+// the library as a list of these.
+type LibraryEntry = compounds.LibraryEntry
 
 // CompoundsJSON returns the built-in library as a JSON array of LibraryEntry, for completion in the page.
 // The text is written when the library is generated (compounds.LibraryJSON), so that the page gets it with

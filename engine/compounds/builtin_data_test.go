@@ -59,21 +59,12 @@ func TestBuiltinEqualsJSON(t *testing.T) {
 	}
 }
 
-// libraryEntry is engine.LibraryEntry, what the page receives of a compound.
-type libraryEntry struct {
-	ID          string   `json:"id"`
-	Name        string   `json:"name"`
-	Synonyms    []string `json:"synonyms,omitempty"`
-	Formula     string   `json:"formula"`
-	Approximate bool     `json:"approximate,omitempty"`
-	Source      string   `json:"source"`
-}
 
 // TestLibraryJSON checks LibraryJSON against json.Marshal of the library's entries.
 func TestLibraryJSON(t *testing.T) {
-	var list []libraryEntry
+	var list []compounds.LibraryEntry
 	for _, c := range compounds.Builtin().All() {
-		list = append(list, libraryEntry{ID: c.ID, Name: c.Name, Synonyms: c.Synonyms, Formula: c.Formula,
+		list = append(list, compounds.LibraryEntry{ID: c.ID, Name: c.Name, Synonyms: c.Synonyms, Formula: c.Formula,
 			Approximate: c.Approximation != "", Source: c.Source})
 	}
 	want, err := json.Marshal(list)

@@ -1,5 +1,6 @@
-// Package names holds the rules for the names of library compounds that both package compounds and its
-// code generator apply: normalization, and the list and sorted index of the names Lookup and Suggest use.
+// Package names holds what package compounds and its code generator must agree on: the rules for the
+// names of library compounds (normalization, the list and sorted index of the names Lookup and Suggest
+// use) and Listed, the shape of a compound in the list the page receives.
 package names
 
 import (
@@ -66,4 +67,15 @@ func Index(entries []Entry) []int {
 	}
 	sort.Slice(idx, func(a, b int) bool { return entries[idx[a]].Norm < entries[idx[b]].Norm })
 	return idx
+}
+
+// Listed is what the page receives of a library compound for completion and display (compounds.LibraryJSON
+// is the library as a list of these; compounds.LibraryEntry and engine.LibraryEntry name it elsewhere).
+type Listed struct {
+	ID          string   `json:"id"`
+	Name        string   `json:"name"`
+	Synonyms    []string `json:"synonyms,omitempty"`
+	Formula     string   `json:"formula"`
+	Approximate bool     `json:"approximate,omitempty"`
+	Source      string   `json:"source"`
 }
