@@ -74,9 +74,10 @@ type computedRow struct {
 	nu    []stoich
 }
 
-// analyse adds the flux-force relation and remedies to the rows and the MDF to the result.
-func (ev *evaluation) analyse(rows []computedRow) {
-	ev.res.MDF = ev.maxMinDrivingForce(rows)
+// analyse adds the max-min driving force of the rows that entered the totals to the result (the rows'
+// flux-force relation and remedies come with the rows, see flux).
+func (ev *evaluation) analyse() {
+	ev.res.MDF = ev.maxMinDrivingForce(ev.computed)
 }
 
 // flux sets the row's flux-force ratio and, for an uphill step, the smallest single change of concentration

@@ -22,7 +22,7 @@ func EvaluateJSON(worksheet []byte) (out []byte, err error) {
 	if err != nil {
 		return nil, err
 	}
-	ev.analyse(shared.computed)
+	ev.analyse()
 	return ev.res.AppendJSON(nil), nil
 }
 

@@ -50,6 +50,7 @@ type evaluation struct {
 	live        bool                 // for a Session: the result's Rows stay empty (the encodings and done hold them)
 	heads       map[headKey]*useHead // for a Session: the compounds' entries under this context
 	done        []*memoRow           // the rows computed or remembered, in order
+	computed    []computedRow        // those of them that entered the totals, for the analysis
 }
 
 type concentration struct {
@@ -66,7 +67,8 @@ func Evaluate(ws *Worksheet, unknown []string) *Result {
 
 func evaluateWith(lib *compounds.Library, ws *Worksheet, unknown []string) *Result {
 	ev := newEvaluation(lib, ws, unknown)
-	ev.analyse(ev.evaluateRows())
+	ev.evaluateRows()
+	ev.analyse()
 	return ev.res
 }
 
@@ -149,8 +151,8 @@ func (s *setup) evaluation(ws *Worksheet, unknown []string) *evaluation {
 }
 
 // evaluateRows computes every row and the totals: everything of the result but the max-min driving
-// force. It returns the rows that can enter the analysis.
-func (ev *evaluation) evaluateRows() []computedRow {
+// force. It notes in computed the rows that can enter the analysis.
+func (ev *evaluation) evaluateRows() {
 	ws, res := ev.ws, ev.res
 	ev.serial = serials.Add(1)
 	ev.checkRowIDs(ev.priorEv)
@@ -209,7 +211,7 @@ func (ev *evaluation) evaluateRows() []computedRow {
 	if len(res.Errors) == 0 {
 		res.Errors = nil
 	}
-	return computed
+	ev.computed = computed
 }
 
 func deref(p *float64) float64 {

@@ -21,13 +21,11 @@ import (
 // A Session is safe for concurrent use, though its answers only make sense to a caller that sees them
 // in order.
 type Session struct {
-	mu       sync.Mutex
-	seq      int         // number of the latest answer; 0 before the first
-	rows     [][]byte    // the latest answer's rows, encoded
-	ev       *evaluation // the latest answer's
-	setup    *setup      // the latest context's, read once for the answers that share it
-	seen     *rowsSeen   // the latest worksheet's rows as read, to read the next one faster
-	computed []computedRow
+	mu    sync.Mutex
+	seq   int         // number of the latest answer; 0 before the first
+	ev    *evaluation // the latest answer's
+	setup *setup      // the latest context's, read once for the answers that share it
+	seen  *rowsSeen   // the latest worksheet's rows as read, to read the next one faster
 
 	analysed struct { // the latest analysis, kept while its worksheet's context and rows stay the same
 		context string
@@ -49,7 +47,10 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	defer recoverEngine(&out, &err, s.reset)
-	prevRows := s.rows
+	var prevRows [][]byte // the rows of the answer numbered s.seq, encoded
+	if s.ev != nil {
+		prevRows = s.ev.res.rowJSON
+	}
 	ev, err := s.evaluate(worksheet)
 	if err != nil {
 		return nil, err
@@ -111,7 +112,6 @@ func (s *Session) ChangesJSON(worksheet []byte, base int) (out []byte, err error
 	dst = res.appendAfterRows(dst, false)
 
 	s.seq++
-	s.rows = res.rowJSON
 	return dst, nil
 }
 
@@ -132,7 +132,7 @@ func (s *Session) evaluate(worksheet []byte) (*evaluation, error) {
 		s.setup = ev.setup(len(unknown))
 	}
 	ev.live = true
-	s.computed = ev.evaluateRows()
+	ev.evaluateRows()
 	ev.prior, ev.priorEv = nil, nil
 	s.ev, s.seen = ev, seen
 	return ev, nil
@@ -156,7 +156,7 @@ func (s *Session) AnalysisJSON() (out []byte, err error) {
 	if a.body == nil || a.context != s.ev.context || !slices.Equal(a.keys, keys) {
 		ev := s.ev
 		n := len(ev.res.Warnings)
-		ev.analyse(s.computed)
+		ev.analyse()
 		body := append([]byte(`"mdf":`), "null"...)
 		if ev.res.MDF != nil {
 			body = ev.res.MDF.appendJSON(body[:len(`"mdf":`)])
@@ -176,6 +176,6 @@ func (s *Session) AnalysisJSON() (out []byte, err error) {
 // reset forgets the latest answer, after a failure of the engine left it in doubt.
 func (s *Session) reset() {
 	s.seq++
-	s.rows, s.ev, s.computed, s.setup, s.seen = nil, nil, nil, nil, nil
+	s.ev, s.setup, s.seen = nil, nil, nil
 	s.analysed.body = nil
 }
