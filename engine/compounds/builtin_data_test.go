@@ -59,7 +59,6 @@ func TestBuiltinEqualsJSON(t *testing.T) {
 	}
 }
 
-
 // TestLibraryJSON checks LibraryJSON against json.Marshal of the library's entries.
 func TestLibraryJSON(t *testing.T) {
 	var list []compounds.LibraryEntry
