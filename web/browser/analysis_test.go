@@ -218,3 +218,24 @@ func (p *page) shotOf(sel, name string) {
 	}
 	p.t.Logf("screenshot: %s", path)
 }
+
+// TestAnalysisFollowsEdit: the max-min driving force comes after the rows, in a task of its own; after an
+// edit that leaves a row out of it and one that brings the row back, the panel and the page's messages
+// show the analysis of the worksheet as it now is, not of an earlier one.
+func TestAnalysisFollowsEdit(t *testing.T) {
+	p := openPage(t, 1400, 900)
+	eq := `#grid-body tr[data-id="r4"] input.eq-input`
+	p.replaceText(eq, "FBP = DHAP + glyceraldehyd")
+	p.waitFor(`document.getElementById("doc-messages").textContent.includes("leaves out the row(s) without ΔrG'°: r4")`)
+	if got := p.text(`#mdf-rows tr[data-id="r4"]`); !strings.Contains(got, "not in the analysis") {
+		t.Errorf("the step left out of the analysis reads %q", got)
+	}
+	p.shot("analysis-row-left-out")
+	p.replaceText(eq, "FBP = DHAP + GAP")
+	p.waitFor(`!document.getElementById("doc-messages").textContent.includes("leaves out") &&
+		gibbsheetPage.store.result.mdf.rows.some(r => r.id === "r4")`)
+	if got := p.text(`#mdf-rows tr[data-id="r4"]`); strings.Contains(got, "not in the analysis") {
+		t.Errorf("the step brought back still reads %q", got)
+	}
+	p.noErrors()
+}
