@@ -1,9 +1,9 @@
-// Package assemble builds the worksheet page as one self-contained HTML file: the engine compiled to
-// WebAssembly (gzip -9, written as text 7 bits to a character by Text7, inflated in the page with
-// DecompressionStream), Go's wasm_exec.js from the same toolchain and the script that starts the engine
-// (all three at the top of the body, so that the engine compiles while the rest of the file is parsed),
-// the style sheet, the page's JavaScript modules joined into one script, and the initial worksheet as
-// inert JSON. The file needs no server and no network.
+// Package assemble builds the worksheet page as one self-contained HTML file: the style sheet, the
+// page's markup, the initial worksheet and the engine's result for it as inert JSON, the page's
+// JavaScript modules joined into one script, which shows that worksheet and result as soon as it is read,
+// and after it the engine compiled to WebAssembly (gzip -9, written as text 7 bits to a character by
+// Text7, inflated in the page with DecompressionStream), Go's wasm_exec.js from the same toolchain and the
+// script that starts the engine. The file needs no server and no network.
 package assemble
 
 import (
@@ -40,8 +40,8 @@ type Page struct {
 	GzipSize int // bytes of the module after gzip -9
 }
 
-// startScript starts the engine while the browser parses the rest of the page; it follows wasm_exec.js in
-// the classic script after the engine's element at the top of the body (js/engine.js waits for it).
+// startScript starts the engine; it follows wasm_exec.js in the classic script after the engine's
+// element at the end of the body (js/engine.js waits for it).
 //
 //go:embed start.js
 var startScript string
@@ -50,6 +50,7 @@ var startScript string
 const (
 	markStyle     = "<!-- gibbsheet:style -->"
 	markWorksheet = "<!-- gibbsheet:worksheet -->"
+	markResult    = "<!-- gibbsheet:result -->"
 	markWasm      = "<!-- gibbsheet:wasm -->"
 	markWasmExec  = "<!-- gibbsheet:wasm_exec -->"
 	markScript    = "<!-- gibbsheet:script -->"
@@ -107,6 +108,10 @@ func Build(opts Options) (*Page, error) {
 	if err != nil {
 		return nil, fmt.Errorf("assemble: %s: %w", opts.Demo, err)
 	}
+	saved, err := savedResult(worksheet)
+	if err != nil {
+		return nil, fmt.Errorf("assemble: %s: %w", opts.Demo, err)
+	}
 
 	templates, err := templatesElement()
 	if err != nil {
@@ -139,15 +144,19 @@ func Build(opts Options) (*Page, error) {
 		return nil, fmt.Errorf("assemble: style.css contains </style")
 	}
 
+	// The parts in the order they come in the page.
 	parts := []struct{ mark, text string }{
 		{markStyle, "<style>\n" + string(style) + "</style>"},
 		{markWorksheet, `<script type="application/json" id="` + inject.ElementID + `">` + string(worksheet) + `</script>`},
+		{markResult, `<script type="application/json" id="` + inject.ResultID + `">` + string(saved) + `</script>`},
+		// A classic script, run as soon as the browser has read it, before the engine's text that follows
+		// it: it shows the worksheet with its saved result while the engine starts (js/main.js).
+		{markScript, `<script data-version="` + htmlAttr(opts.Version) + "\">\n" + script + "</script>"},
 		{markTemplates, templates},
 		{markWasm, `<script type="application/octet-stream" id="gs-engine" data-encoding="gzip+text7" data-length="` +
 			fmt.Sprint(gz.Len()) + `">` + Text7(gz.Bytes()) + `</script>`},
 		// wasm_exec.js and, after it, the script that starts the engine with it.
 		{markWasmExec, "<script>\n" + string(wasmExec) + "\n" + start + "</script>"},
-		{markScript, `<script type="module" data-version="` + htmlAttr(opts.Version) + "\">\n" + script + "</script>"},
 	}
 	// fillPage (share.go) adds the Content-Security-Policy with the hashes of these scripts and the shell
 	// from which the page saves itself, and puts each part in place of its marker.

@@ -23,8 +23,9 @@ import (
 //
 //	skeleton with each marker replaced by open + textContent of the element with that id + close
 //
-// except for the worksheet element, whose content is the current document escaped as inject.Escape does
-// (js/share.js). The scripts come back byte for byte, so the hashes in the policy stay valid.
+// except for the worksheet element, whose content is the current document escaped as inject.Escape does,
+// and the result element, whose content is the result for it as inject.Result writes it (js/share.js).
+// The scripts come back byte for byte, so the hashes in the policy stay valid.
 
 // ShellID is the id of the element that holds the page's recipe of itself.
 const ShellID = "gibbsheet-shell"
@@ -48,6 +49,7 @@ type shellPart struct {
 type shell struct {
 	Skeleton  string      `json:"skeleton"`
 	Worksheet string      `json:"worksheet"` // id of the worksheet element
+	Result    string      `json:"result"`    // id of the element of the result saved with it
 	Demo      string      `json:"demo"`      // the built-in demo's element text ("" when built with another)
 	Parts     []shellPart `json:"parts"`
 }
@@ -132,7 +134,7 @@ func Policy(scripts, styles []string) string {
 // the worksheet element's text when it is the built-in demo, so that the page can label it as invented
 // data as long as it is unchanged (a saved worksheet is not the demo).
 func fillPage(skeleton string, parts []struct{ mark, text string }, demo string) (string, error) {
-	sh := shell{Worksheet: inject.ElementID, Demo: demo}
+	sh := shell{Worksheet: inject.ElementID, Result: inject.ResultID, Demo: demo}
 	var scripts, styles []string
 	for _, p := range parts {
 		sp, err := splitPart(p.mark, p.text)
@@ -223,5 +225,19 @@ func WithWorksheet(page, doc []byte) ([]byte, error) {
 	if !strings.Contains(string(page), `id="`+ShellID+`"`) {
 		return nil, fmt.Errorf("assemble: the page was not built by this version (it has no %s element)", ShellID)
 	}
-	return inject.Worksheet(page, doc)
+	result, err := engine.EvaluateJSON(doc)
+	if err != nil { // checkWorksheet read it, so the engine reads it too
+		return nil, err
+	}
+	return inject.Worksheet(page, doc, result)
+}
+
+// savedResult returns the content of the result element for the worksheet element text worksheet: the
+// engine's result for it, which the page shows until its own engine has computed one.
+func savedResult(worksheet []byte) ([]byte, error) {
+	result, err := engine.EvaluateJSON(worksheet)
+	if err != nil {
+		return nil, err
+	}
+	return inject.Result(worksheet, result)
 }

@@ -14,6 +14,7 @@ import (
 
 	"github.com/google/go-cmp/cmp"
 
+	"gibbsheet/engine"
 	"gibbsheet/web/assemble"
 	"gibbsheet/web/inject"
 )
@@ -38,7 +39,7 @@ var (
 )
 
 // TestPolicyHashes checks that the built page's policy allows exactly the inline scripts the browser
-// runs (classic and module, not the JSON and engine data blocks) and the style element, by their SHA-256
+// runs (the classic scripts, not the JSON and engine data blocks) and the style element, by their SHA-256
 // (the CSP Level 3 hash source), and blocks every connection and every resource from elsewhere.
 func TestPolicyHashes(t *testing.T) {
 	html := page(t)
@@ -100,12 +101,14 @@ func TestPolicyHashes(t *testing.T) {
 
 // rebuild does in Go what js/share.js does in the page: the skeleton of the shell with each marker
 // replaced by its element, the element's text taken from the page (by id), the worksheet's from doc
-// escaped by inject.Escape (nil: as in the page).
-func rebuild(t *testing.T, html string, doc []byte) string {
+// escaped by inject.Escape and the result's written by inject.Result from it and result (doc nil: both as
+// in the page).
+func rebuild(t *testing.T, html string, doc, result []byte) string {
 	t.Helper()
 	var sh struct {
 		Skeleton  string
 		Worksheet string
+		Result    string
 		Parts     []struct{ Mark, Open, Close, ID string }
 	}
 	m := regexp.MustCompile(`<script type="application/json" id="` + assemble.ShellID + `">([^<]*)</script>`).FindStringSubmatch(html)
@@ -134,6 +137,14 @@ func rebuild(t *testing.T, html string, doc []byte) string {
 			}
 			body = string(esc)
 		}
+		if p.ID == sh.Result && doc != nil {
+			esc, _ := inject.Escape(doc)
+			saved, err := inject.Result(esc, result)
+			if err != nil {
+				t.Fatal(err)
+			}
+			body = string(saved)
+		}
 		if strings.Count(out, p.Mark) != 1 {
 			t.Fatalf("marker %s not once in the skeleton", p.Mark)
 		}
@@ -147,7 +158,7 @@ func rebuild(t *testing.T, html string, doc []byte) string {
 // makes of the page, which inject.Extract reads back.
 func TestShellRebuildsPage(t *testing.T) {
 	html := page(t)
-	if got := rebuild(t, html, nil); got != html {
+	if got := rebuild(t, html, nil, nil); got != html {
 		i := 0
 		for i < len(got) && i < len(html) && got[i] == html[i] {
 			i++
@@ -155,11 +166,15 @@ func TestShellRebuildsPage(t *testing.T) {
 		t.Fatalf("the rebuilt page differs from the built one at byte %d: %.80q vs %.80q", i, got[i:], html[i:])
 	}
 	doc := []byte(`{"format":"gibbsheet-worksheet/1","title":"</script><img src=x onerror=alert(1)>","rows":[]}`)
-	want, err := inject.Worksheet([]byte(html), doc)
+	result, err := engine.EvaluateJSON(doc)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := rebuild(t, html, doc); got != string(want) {
+	want, err := inject.Worksheet([]byte(html), doc, result)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := rebuild(t, html, doc, result); got != string(want) {
 		t.Error("rebuilding with a new worksheet differs from inject.Worksheet")
 	}
 }
@@ -189,6 +204,47 @@ func TestWorksheetFromCommandLine(t *testing.T) {
 	if string(got) != string(want) {
 		t.Errorf("embedded worksheet %s, want %s", got, want)
 	}
+	checkSavedResult(t, html)
+}
+
+// TestSavedResult checks the result the built page carries for its worksheet: the engine's result for
+// the worksheet element's text, under that text's fingerprint.
+func TestSavedResult(t *testing.T) {
+	checkSavedResult(t, []byte(page(t)))
+}
+
+// checkSavedResult checks that the page's result element holds {"for": fingerprint of the worksheet
+// element's text, "result": the engine's result for it}.
+func checkSavedResult(t *testing.T, html []byte) {
+	t.Helper()
+	ws, err := inject.Extract(html)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := regexp.MustCompile(`<script type="application/json" id="` + inject.ResultID + `">([^<]*)</script>`).FindSubmatch(html)
+	if m == nil {
+		t.Fatal("the page has no result element")
+	}
+	var saved struct {
+		For    string
+		Result json.RawMessage
+	}
+	if err := json.Unmarshal(m[1], &saved); err != nil {
+		t.Fatalf("the result element does not hold JSON: %v", err)
+	}
+	if want := inject.Fingerprint(ws); saved.For != want {
+		t.Errorf("the saved result is for %q, the worksheet's fingerprint is %q", saved.For, want)
+	}
+	want, err := engine.EvaluateJSON(ws)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var a, b any
+	json.Unmarshal(want, &a)
+	json.Unmarshal(saved.Result, &b)
+	if diff := cmp.Diff(a, b); diff != "" {
+		t.Errorf("the saved result is not the engine's for the worksheet (-want +got):\n%s", diff)
+	}
 }
 
 // TestWithWorksheet puts a worksheet into a built page without building: the worksheet is read back,
@@ -205,7 +261,8 @@ func TestWithWorksheet(t *testing.T) {
 	if string(got) != string(want) {
 		t.Errorf("embedded %s, want %s", got, want)
 	}
-	if rebuilt := rebuild(t, string(out), nil); rebuilt != string(out) {
+	checkSavedResult(t, out)
+	if rebuilt := rebuild(t, string(out), nil, nil); rebuilt != string(out) {
 		t.Error("a page made by WithWorksheet cannot rebuild itself")
 	}
 	for _, c := range []struct {

@@ -1,8 +1,8 @@
-// The engine's start, as early as the page allows. Build puts this after Go's wasm_exec.js in the classic
-// script that follows the engine's element (#gs-engine: the WebAssembly module gzip-compressed and
-// written as text by Text7) at the top of the body, so that the module is inflated and compiled while
-// the browser still parses the rest of the file; the page's script (js/engine.js, startEngine) waits for
-// the result, globalThis.gibbsheetStart.engine. Errors are the page's script's to report.
+// The engine's start. Build puts this after Go's wasm_exec.js in the classic script that follows the
+// engine's element (#gs-engine: the WebAssembly module gzip-compressed and written as text by Text7) at
+// the end of the body, after the page's script, which has by then shown the worksheet with the result
+// saved with it; the page's script (js/engine.js, startEngine) waits for the engine,
+// globalThis.gibbsheetStart.engine. Errors are the page's script's to report.
 (() => {
   // text7Bytes decodes a text written by Text7 (web/assemble): 7 bits per character, characters from
   // U+0080 on (U+00C0, U+00CD, U+00FC) standing for the value minus 0xC0; length is the number of bytes.

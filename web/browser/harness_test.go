@@ -10,6 +10,7 @@ import (
 	"testing"
 	"time"
 
+	cdppage "github.com/chromedp/cdproto/page"
 	"github.com/chromedp/cdproto/runtime"
 	"github.com/chromedp/chromedp"
 
@@ -57,6 +58,13 @@ func openPage(t testing.TB, width, height int) *page {
 // openURL is openPage for any address, such as the page served by the edge service's handler.
 func openURL(t testing.TB, url string, width, height int) *page {
 	t.Helper()
+	return openUntil(t, url, width, height, `document.body.dataset.ready === "true"`)
+}
+
+// openUntil is openURL waiting for the expression until instead of the page's readiness. Each prelude
+// script runs in the page before the page's own.
+func openUntil(t testing.TB, url string, width, height int, until string, prelude ...string) *page {
+	t.Helper()
 	if _, err := os.Stat(chromium); err != nil {
 		t.Fatalf("the browser tests need Chromium at %s: %v", chromium, err)
 	}
@@ -70,8 +78,14 @@ func openURL(t testing.TB, url string, width, height int) *page {
 	if err := chromedp.Listen(ctx, p.listen); err != nil {
 		t.Fatalf("starting Chromium: %v", err)
 	}
+	for _, src := range prelude {
+		p.call(func(ctx context.Context) error {
+			_, err := chromedp.Call(ctx, cdppage.AddScriptToEvaluateOnNewDocument, cdppage.AddScriptToEvaluateOnNewDocumentParams{Source: src})
+			return err
+		})
+	}
 	p.do(chromedp.EmulateViewport(int64(width), int64(height)), chromedp.Navigate(url))
-	p.waitFor(`document.body.dataset.ready === "true"`)
+	p.waitFor(until)
 	p.noErrors()
 	return p
 }
@@ -124,6 +138,23 @@ func (p *page) noErrors() {
 	if len(p.errs) > 0 {
 		p.t.Fatalf("the page reported errors:\n%s", strings.Join(p.errs, "\n"))
 	}
+}
+
+// call runs f with the page's context and a time limit.
+func (p *page) call(f func(ctx context.Context) error) {
+	p.t.Helper()
+	ctx, cancel := context.WithTimeout(p.ctx, 60*time.Second)
+	defer cancel()
+	if err := chromedp.Do(ctx, chromedp.Func(func(ctx context.Context, _ *chromedp.Target) error { return f(ctx) })); err != nil {
+		p.t.Fatalf("browser: %v", err)
+	}
+}
+
+// typeInto focuses the field, selects what it holds and types text over it with key events.
+func (p *page) typeInto(sel, text string) {
+	p.t.Helper()
+	eval[bool](p, `(() => { const e = document.querySelector(`+jsString(sel)+`); e.focus(); e.select(); return true; })()`)
+	p.do(chromedp.KeyEvent(text))
 }
 
 // do runs actions with a time limit.

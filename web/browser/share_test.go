@@ -97,14 +97,6 @@ type request struct {
 	blocked string
 }
 
-// call runs f with the page's context and a time limit.
-func (p *filePage) call(f func(ctx context.Context) error) {
-	p.t.Helper()
-	if err := chromedp.Do(p.ctx, chromedp.Func(func(ctx context.Context, _ *chromedp.Target) error { return f(ctx) })); err != nil {
-		p.t.Fatalf("browser: %v", err)
-	}
-}
-
 func (p *filePage) listenMore(ev any) {
 	p.listen(ev)
 	switch ev := ev.(type) {
@@ -193,13 +185,6 @@ func (p *filePage) doc() map[string]any {
 		p.t.Fatal(err)
 	}
 	return v
-}
-
-// typeInto focuses the field, selects what it holds and types text over it with key events.
-func (p *filePage) typeInto(sel, text string) {
-	p.t.Helper()
-	eval[bool](p.page, `(() => { const e = document.querySelector(`+jsString(sel)+`); e.focus(); e.select(); return true; })()`)
-	p.do(chromedp.KeyEvent(text))
 }
 
 // embedded reads the worksheet document out of a saved file with package inject.
@@ -501,8 +486,8 @@ func TestHostileWorksheet(t *testing.T) {
 		if eval[bool](p.page, `window.__pwned !== undefined`) {
 			t.Fatal("a name in the worksheet ran as script")
 		}
-		if n := eval[int](p.page, `document.querySelectorAll("img, body script:not([type]), iframe, object").length`); n != 1 {
-			t.Errorf("%d img/script/iframe/object elements, want only the page's own wasm_exec script", n)
+		if n := eval[int](p.page, `document.querySelectorAll("img, body script:not([type]), iframe, object").length`); n != 2 {
+			t.Errorf("%d img/script/iframe/object elements, want only the page's own two scripts (the page's, wasm_exec's)", n)
 		}
 		if got := eval[string](p.page, `document.getElementById("ws-title").value`); got != hostile {
 			t.Errorf("title shows %q", got)

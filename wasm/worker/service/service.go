@@ -177,7 +177,13 @@ func (h *handler) worksheetPage(w http.ResponseWriter, r *http.Request, id strin
 	if !ok {
 		return
 	}
-	page, err := inject.Worksheet(h.page, doc)
+	// The page shows the saved result while its engine starts: a stored document is read by the engine,
+	// which passed it before storing it, so an error here leaves the page to compute it alone.
+	result, err := engine.EvaluateJSON(doc)
+	if err != nil {
+		result = nil
+	}
+	page, err := inject.Worksheet(h.page, doc, result)
 	if err != nil { // stored documents passed engine.Decode, so they are JSON
 		sendError(w, http.StatusInternalServerError, "cannot put the stored worksheet into the page: "+err.Error())
 		return

@@ -10,13 +10,16 @@ import (
 	"strings"
 	"testing"
 
+	"gibbsheet/engine"
 	"gibbsheet/wasm/worker/service"
 	"gibbsheet/web/inject"
 )
 
-// testPage is the smallest page the service accepts: a head and the worksheet element.
+// testPage is the smallest page the service accepts, a head and the worksheet element, with the element
+// of the result saved with the worksheet.
 const testPage = `<!doctype html><html><head><title>t</title></head><body>` +
-	`<script type="application/json" id="` + inject.ElementID + `">{}</script></body></html>`
+	`<script type="application/json" id="` + inject.ElementID + `">{}</script>` +
+	`<script type="application/json" id="` + inject.ResultID + `">null</script></body></html>`
 
 // worksheet is a small valid worksheet document (its chemistry is not under test here).
 const worksheet = `{"format": "gibbsheet-worksheet/1", "title": "hexokinase",
@@ -182,6 +185,14 @@ func TestPublish(t *testing.T) {
 	}
 	if want, _ := inject.Escape(doc); !bytes.Equal(embedded, want) {
 		t.Errorf("page carries %s, want %s", embedded, want)
+	}
+	// The page carries the engine's result for the worksheet, which it shows while its engine starts.
+	result, err := engine.EvaluateJSON(doc)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want, _ := inject.Result(embedded, result); !bytes.Contains(page.Body.Bytes(), want) {
+		t.Errorf("the page does not carry the worksheet's result %.200s…", want)
 	}
 	if !strings.Contains(page.Body.String(), service.Marker) {
 		t.Error("the worksheet page has no service marker")

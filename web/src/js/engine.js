@@ -1,8 +1,9 @@
 // Starting the engine: the WebAssembly module is inlined in the page gzip-compressed and written as text
 // (element #gs-engine, 7 bits per character, see Text7 in web/assemble). The classic script that follows
-// it at the top of the page (Go's wasm_exec.js, then web/assemble/start.js) inflates, compiles and runs it
-// while the browser parses the rest of the file, and puts its decoder and the engine's start on
-// globalThis.gibbsheetStart; the bridge puts {evaluate, compounds, version, ...} on globalThis.gibbsheet.
+// it at the end of the page (Go's wasm_exec.js, then web/assemble/start.js) inflates, compiles and runs
+// it, and puts its decoder and the engine's start on globalThis.gibbsheetStart; the bridge puts
+// {evaluate, compounds, version, ...} on globalThis.gibbsheet. The page's script comes before all of it
+// and calls these functions once the whole file is read.
 
 // starter returns what the page's start script provides.
 function starter() {

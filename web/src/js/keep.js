@@ -9,7 +9,7 @@
 import { store, onChange, loadDocument, edit } from "./state.js";
 import { el } from "./format.js";
 import { isRestoring } from "./history.js";
-import { embeddedText, isDirty, say, markEmbedded, beforeImport } from "./share.js";
+import { embeddedText, fingerprint, isDirty, say, markEmbedded, beforeImport } from "./share.js";
 import { templateHooks } from "./templates.js";
 
 const INDEX = "gibbsheet:index";
@@ -24,16 +24,6 @@ function storage() {
   } catch {
     return null; // storage switched off for file pages
   }
-}
-
-// hash is FNV-1a over the UTF-16 code units, as 8 hex digits: enough to tell files apart, not a secret.
-function hash(s) {
-  let h = 0x811c9dc5;
-  for (let i = 0; i < s.length; i++) {
-    h ^= s.charCodeAt(i);
-    h = Math.imul(h, 0x01000193) >>> 0;
-  }
-  return h.toString(16).padStart(8, "0");
 }
 
 function newId() {
@@ -109,7 +99,7 @@ function track(kind) {
 // chooseInitial decides what the page opens with: the file's own worksheet, or the edits made to it in
 // this browser when there are some. initial is {doc, origin}; the result has the same form.
 export function chooseInitial(initial) {
-  keep.fileKey = location.pathname + "#" + hash(embeddedText());
+  keep.fileKey = location.pathname + "#" + fingerprint(embeddedText());
   const ls = storage();
   const id = ls?.getItem(FILE + keep.fileKey);
   const doc = id ? readDoc(id) : null;

@@ -1,11 +1,14 @@
-// The page's start: start the engine, read the initial worksheet embedded in the page, wire the
-// controls, put the worksheet in the page and, once every panel is drawn, load the compound library for
-// completion. On opening, the grid with the first result is drawn and painted before the panels below
-// it (render); the marks gibbsheet:first-result, gibbsheet:first-frame and gibbsheet:panels time this
-// (web/browser/bench_start_test.go). Whatever the page shows is drawn again from store.result after
-// every edit.
+// The page's start. This script runs as soon as the browser has read it, before the engine's text that
+// follows it in the file: it reads the worksheet embedded in the page and, when the file carries the
+// result saved with that very worksheet (js/share.js, savedResult), shows both at once. Once the rest of
+// the file is read and the engine has started, it wires the controls, has the engine compute the
+// worksheet (its answer replaces the saved one) and, once every panel is drawn, loads the compound
+// library for completion. On opening, the grid with the first result is drawn and painted before the
+// panels below it (render); the marks gibbsheet:first-result, gibbsheet:engine-result,
+// gibbsheet:first-frame and gibbsheet:panels time this (web/browser/bench_start_test.go). Whatever the
+// page shows is drawn again from store.result after every edit.
 
-import { store, onChange, loadDocument, emptyDocument, recompute, evaluateDocument, settled } from "./state.js";
+import { store, onChange, loadDocument, emptyDocument, recompute, evaluateDocument, settled, showSaved } from "./state.js";
 import { startEngine } from "./engine.js";
 import { renderStructure, renderInputs, renderResults } from "./grid.js";
 import { onKey, onPaste } from "./keyboard.js";
@@ -22,7 +25,7 @@ import { setupTemplates, prepareTemplates, templates } from "./templates.js";
 import { setupAnalysis, renderAnalysis } from "./analysis.js";
 import { setupCompare, renderCompare } from "./compare.js";
 import { setupCompartments, renderCompartments } from "./compartments.js";
-import { setupShare, markEmbedded, isDemo } from "./share.js";
+import { openShell, setupShare, markEmbedded, isDemo, savedResult } from "./share.js";
 import { setupKeep, chooseInitial, mayReplace } from "./keep.js";
 import { setupHistory } from "./history.js";
 import { setupPublish } from "./publish.js";
@@ -54,6 +57,8 @@ function draw(kind, names) {
 // opening is "first" until the first result is drawn, "panels" while the panels below wait for the
 // grid to be painted, and "" after.
 let opening = "first";
+// engineDrawn is true once a result the engine computed in this page has been drawn.
+let engineDrawn = false;
 
 function render(kind) {
   if (!store.doc) return;
@@ -63,6 +68,10 @@ function render(kind) {
   document.getElementById("demo-flag").hidden = store.ui.origin !== "demo";
   document.title = (store.doc.title ? store.doc.title + " — " : "") + "Gibbsheet";
   timings.evaluate = store.lastEvalMs;
+  if (store.engine && !engineDrawn && store.result) {
+    engineDrawn = true;
+    queueMicrotask(() => performance.mark("gibbsheet:engine-result")); // once the grid below is drawn
+  }
   if (opening === "first" && store.result) {
     opening = "panels";
     draw(kind, FIRST);
@@ -70,10 +79,15 @@ function render(kind) {
     afterPaint(() => {
       performance.mark("gibbsheet:first-frame");
       if (opening !== "panels") return; // a later drawing drew everything
+      if (!store.engine) return; // the panels are set up with the engine, whose first answer draws them
       opening = "";
       draw(kind, PANELS);
       pageReady();
     });
+    return;
+  }
+  if (!store.engine) {
+    draw(kind, FIRST); // before the engine has started, only the grid and what is above it
     return;
   }
   if (opening === "panels") {
@@ -120,11 +134,18 @@ function initialWorksheet() {
   return { doc: JSON.parse(holder.textContent), origin: isDemo() ? "demo" : "file" };
 }
 
-function wire() {
+// wireGrid wires the grid and the fields above it, which work before the engine has started: the edits
+// made meanwhile are computed when it has.
+function wireGrid() {
   const body = document.getElementById("grid-body");
   body.addEventListener("keydown", onKey);
   body.addEventListener("paste", onPaste);
   document.getElementById("add-row").addEventListener("click", () => focusCell(appendRow(), "eq"));
+  setupConditions();
+}
+
+// wire wires the rest of the page, once the engine has started.
+function wire() {
   document.getElementById("new-sheet").addEventListener("click", () => {
     if (!mayReplace()) return;
     loadDocument(emptyDocument(), "empty");
@@ -143,7 +164,6 @@ function wire() {
     help.hidden = !help.hidden;
     keys.setAttribute("aria-expanded", String(!help.hidden));
   });
-  setupConditions();
   setupLevels();
   setupOwn();
   setupTemplates();
@@ -156,21 +176,10 @@ function wire() {
 }
 
 async function main() {
+  performance.mark("gibbsheet:script");
   const state = document.getElementById("engine-state");
   onChange(render);
-  // The templates are inflated while the engine starts (the picker and the comparison panel list them).
-  const templatesReady = prepareTemplates();
-  try {
-    store.engine = await startEngine((why) => { state.textContent = "The engine stopped: " + why; });
-  } catch (e) {
-    state.textContent = "The engine could not start: " + (e.message || e);
-    state.classList.add("err");
-    return;
-  }
-  state.textContent = "";
-  await templatesReady;
-  document.getElementById("version").textContent = "version " + store.engine.version;
-  setupShare(); // before anything else reads the page: it keeps the texts the page saves itself from
+  openShell(); // the shell, the worksheet and the result saved with it come before this script
   let initial;
   try {
     initial = initialWorksheet();
@@ -180,6 +189,26 @@ async function main() {
   }
   const fromFile = initial.origin !== "empty";
   initial = chooseInitial(initial); // the edits kept in this browser for this file, if any
+  // The worksheet is shown at once, with the result saved with it when the file carries one for it.
+  const saved = initial.restored ? null : savedResult();
+  wireGrid();
+  showSaved(initial.doc, saved, initial.origin);
+  if (fromFile && !initial.restored) markEmbedded(); // before any edit
+  if (saved && !state.textContent) state.textContent = "Showing the results saved with this file while the engine starts…";
+  await parsed(); // the templates, the engine and its start script follow this script
+  // The templates are inflated while the engine starts (the picker and the comparison panel list them).
+  const templatesReady = prepareTemplates();
+  try {
+    store.engine = await startEngine((why) => { state.textContent = "The engine stopped: " + why; });
+  } catch (e) {
+    state.textContent = "The engine could not start: " + (e.message || e);
+    state.classList.add("err");
+    return;
+  }
+  if (saved) state.textContent = "";
+  await templatesReady;
+  document.getElementById("version").textContent = "version " + store.engine.version;
+  setupShare();
   wire();
   whenReady = () => {
     try {
@@ -190,9 +219,14 @@ async function main() {
     }
     document.body.dataset.ready = "true";
   };
-  loadDocument(initial.doc, initial.origin);
-  if (fromFile && !initial.restored) markEmbedded();
+  recompute("load"); // the engine's own result for the worksheet, with any edit made meanwhile
   initial.first?.();
+}
+
+// parsed resolves once the browser has read the whole file.
+function parsed() {
+  if (document.readyState !== "loading") return Promise.resolve();
+  return new Promise((resolve) => document.addEventListener("DOMContentLoaded", resolve, { once: true }));
 }
 
 // The page's functions for tests, benchmarks and features that load or read worksheets.

@@ -19,11 +19,14 @@ import { el } from "./format.js";
 export const MAX_BYTES = 5 * 1024 * 1024;
 
 const WORKSHEET_ID = "gibbsheet-worksheet";
+const RESULT_ID = "gibbsheet-result";
 
-const share = { shell: null, texts: new Map(), embedded: "", embeddedDoc: "", clean: "", error: "", hooks: [] };
+const share = { shell: null, texts: new Map(), embedded: "", embeddedResult: "", embeddedDoc: "", clean: "", error: "", hooks: [] };
 
-// readShell keeps the recipe and the texts of the page's elements, before anything else runs.
-function readShell() {
+// openShell keeps the recipe, the worksheet element's text and the result saved beside it, before
+// anything else runs. These elements come before the page's script; the others, read by readParts,
+// after it.
+export function openShell() {
   const holder = document.getElementById("gibbsheet-shell");
   if (!holder) {
     share.error = "this page was not built to save itself (it has no shell)";
@@ -35,6 +38,13 @@ function readShell() {
     share.error = "the page's description of itself is damaged: " + e.message;
     return;
   }
+  share.embedded = document.getElementById(WORKSHEET_ID)?.textContent ?? "";
+  share.embeddedResult = document.getElementById(RESULT_ID)?.textContent ?? "";
+}
+
+// readParts keeps the texts of the page's elements, once the whole file is read.
+function readParts() {
+  if (!share.shell) return;
   for (const p of share.shell.parts) {
     const node = document.getElementById(p.id);
     if (!node) {
@@ -44,12 +54,43 @@ function readShell() {
     }
     share.texts.set(p.id, node.textContent);
   }
-  share.embedded = share.texts.get(WORKSHEET_ID) ?? "";
 }
 
 // embeddedText is the worksheet element's text as the file carries it ("" when none).
 export function embeddedText() {
   return share.embedded;
+}
+
+// fingerprint is FNV-1a over the UTF-16 code units of s, as 8 hex digits (web/inject.Fingerprint): enough
+// to tell texts apart, not a secret.
+export function fingerprint(s) {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < s.length; i++) {
+    h ^= s.charCodeAt(i);
+    h = Math.imul(h, 0x01000193) >>> 0;
+  }
+  return h.toString(16).padStart(8, "0");
+}
+
+// savedResult is the result document saved in the file beside its worksheet (web/inject.Result), or null
+// when there is none or it was computed for another text of the worksheet element.
+export function savedResult() {
+  try {
+    const saved = JSON.parse(share.embeddedResult || "null");
+    if (saved?.for === fingerprint(share.embedded) && Array.isArray(saved.result?.rows)) return saved.result;
+  } catch {
+    // a damaged result is no result: the engine computes one
+  }
+  return null;
+}
+
+// resultText is the result element's text for the document on screen: the file's own while the document
+// is the one it was opened with, else the current result under the fingerprint of worksheetText, or null
+// when the page holds no result for this document.
+function resultText(worksheetText) {
+  if (share.embeddedResult && JSON.stringify(store.doc) === share.embeddedDoc) return share.embeddedResult;
+  if (!store.result || store.evalError) return "null";
+  return escapeJSON({ for: fingerprint(worksheetText), result: store.result });
 }
 
 // isDemo reports whether the file carries the built-in demo worksheet unchanged.
@@ -78,6 +119,13 @@ function worksheetText() {
   return escapeJSON(store.doc);
 }
 
+// partText is the text of a part of the file for the document on screen.
+function partText(p) {
+  if (p.id === share.shell.worksheet) return worksheetText();
+  if (p.id === share.shell.result) return resultText(worksheetText());
+  return share.texts.get(p.id);
+}
+
 // pageFile returns the text of the file that holds the engine, the page and the open worksheet.
 export function pageFile() {
   if (!share.shell) throw new Error(share.error || "this page cannot save itself");
@@ -90,7 +138,7 @@ export function pageFile() {
   const out = [];
   let last = 0;
   for (const { at, p } of spots) {
-    out.push(sk.slice(last, at), p.open, p.id === share.shell.worksheet ? worksheetText() : share.texts.get(p.id), p.close);
+    out.push(sk.slice(last, at), p.open, partText(p), p.close);
     last = at + p.mark.length;
   }
   out.push(sk.slice(last));
@@ -266,7 +314,7 @@ export function beforeImport(fn) {
 
 // setupShare reads the page's recipe of itself and wires the file bar.
 export function setupShare() {
-  readShell();
+  readParts();
   const on = (id, fn) => document.getElementById(id)?.addEventListener("click", fn);
   on("save-file", saveAsFile);
   on("export-json", exportJSON);

@@ -69,6 +69,15 @@ export function newRowId(doc) {
   return "r" + n;
 }
 
+// showSaved puts a worksheet document into the page before the engine has started (loadDocument
+// otherwise), with the result saved with it in the file, or none (null); the engine's first answer
+// replaces it.
+export function showSaved(doc, result, origin) {
+  store.result = result;
+  live.mdf = result?.mdf ?? null; // shown with the engine's first answer until its own analysis follows
+  loadDocument(doc, origin);
+}
+
 // edit applies change(doc) and recomputes. kind is passed to the listeners.
 export function edit(change, kind = "values") {
   change(store.doc);
@@ -80,6 +89,9 @@ export function edit(change, kind = "values") {
 // the max-min driving force, which weighs the whole pathway, follows in a task of its own so that the
 // rows are drawn first; the listeners hear of it with kind "analysis".
 export function recompute(kind = "values") {
+  // Before the engine has started, the result shown is the one saved with the file, which an edit
+  // makes another document's: nothing is shown until the engine computes.
+  if (!store.engine && kind !== "load") store.result = live.mdf = null;
   evaluateDocument();
   for (const fn of listeners) fn(kind);
 }
