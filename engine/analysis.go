@@ -22,6 +22,8 @@ type MDF struct {
 	LeftOut        []string          `json:"leftOut"` // rows without ΔrG'°, not in the analysis
 	Message        string            `json:"message"`
 	Solver         map[string]string `json:"-"`
+
+	json []byte // for an MDF a Session keeps (see mdfMemo): the MDF as appendJSON writes it
 }
 
 // OptimalConc is one compound's concentration at the MDF optimum (mol/L), beside its bounds and the
@@ -75,9 +77,23 @@ type computedRow struct {
 }
 
 // analyse adds the max-min driving force of the rows that entered the totals to the result (the rows'
-// flux-force relation and remedies come with the rows, see flux).
+// flux-force relation and remedies come with the rows, see flux). An evaluation of a Session takes what it
+// can from the Session's latest analysis, and the MDF it keeps is encoded once (see mdfMemo).
 func (ev *evaluation) analyse() {
-	ev.res.MDF = ev.maxMinDrivingForce(ev.computed)
+	memo := ev.analysis
+	if memo == nil {
+		memo = new(mdfMemo)
+	}
+	m := ev.maxMinDrivingForce(ev.computed, memo)
+	if ev.analysis != nil && m != nil && m.json == nil {
+		ev.analysis.encode(m)
+	}
+	ev.res.MDF = m
+}
+
+// mdfSizeGuess is a little more than the bytes of m encoded, with names and ids of a usual length.
+func mdfSizeGuess(m *MDF) int {
+	return 512 + len(m.Message) + 96*len(m.Rows) + 160*len(m.Concentrations) + 96*len(m.Binding) + 16*len(m.LeftOut)
 }
 
 // flux sets the row's flux-force ratio and, for an uphill step, the smallest single change of concentration
@@ -117,60 +133,31 @@ func (ev *evaluation) remedy(dg float64, nu []stoich) *Remedy {
 	return best
 }
 
-// maxMinDrivingForce builds and solves the MDF linear program over the computed rows; water and H+ are
-// fixed and stay out of it.
-func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
-	out := &MDF{Bottlenecks: []string{}, Concentrations: []OptimalConc{}, Rows: []MDFRow{}, Binding: []BindingBound{},
-		LeftOut: []string{}}
+// maxMinDrivingForce builds the MDF linear program over the computed rows and solves it, or takes its
+// solution, or the whole MDF, from memo, which then holds this analysis.
+func (ev *evaluation) maxMinDrivingForce(rows []computedRow, memo *mdfMemo) *MDF {
+	in := &memo.next
+	in.reset()
 	for i, m := range ev.done {
-		r := &m.result
-		if r.DG0 == nil {
-			out.LeftOut = append(out.LeftOut, ev.ws.Rows[i].ID)
+		if m.result.DG0 == nil {
+			in.leftOut = append(in.leftOut, ev.ws.Rows[i].ID)
 		}
 	}
-	if len(out.LeftOut) > 0 {
+	if len(in.leftOut) > 0 {
 		ev.warn(Warning{Code: "mdf-left-out", Path: "rows", Message: say.Sprintf(
-			"the max-min driving force leaves out the row(s) without ΔrG'°: %s", strings.Join(out.LeftOut, ", "))})
+			"the max-min driving force leaves out the row(s) without ΔrG'°: %s", strings.Join(in.leftOut, ", "))})
 	}
 	if len(rows) == 0 {
 		return nil
 	}
-	p := &mdf.Problem{RT: ev.rt, Reactions: make([]mdf.Reaction, 0, len(rows))}
-	index := make(map[string]int, 32)
-	var compounds []*stoich
-	used := make([]computedRow, 0, len(rows))
-	terms := 0
-	for _, cr := range rows {
-		terms += len(cr.nu)
+	var prev *mdfInputs
+	if memo.valid {
+		prev = &memo.last
 	}
-	// One backing array for every reaction's compounds and coefficients: a pathway's worth of small slices
-	// is most of the set-up's time otherwise.
-	allCompound, allCoef := make([]int, 0, terms), make([]float64, 0, terms)
-	for _, cr := range rows {
-		row := &ev.done[cr.index].result
-		start := len(allCompound)
-		reaction := mdf.Reaction{DG0: *row.DG0}
-		for k := range cr.nu {
-			s := &cr.nu[k]
-			if s.r.isWater() || s.r.isProton() || s.coef == 0 {
-				continue
-			}
-			i, ok := index[s.key]
-			if !ok {
-				i = len(compounds)
-				index[s.key] = i
-				compounds = append(compounds, s)
-				lo, hi := ev.boundOf(s.r).ln()
-				p.Lower, p.Upper = append(p.Lower, lo), append(p.Upper, hi)
-			}
-			allCompound, allCoef = append(allCompound, i), append(allCoef, s.coef)
-		}
-		reaction.Compound, reaction.Coef = allCompound[start:len(allCompound):len(allCompound)], allCoef[start:len(allCoef):len(allCoef)]
-		p.Reactions = append(p.Reactions, reaction)
-		used = append(used, cr)
-	}
-	sol, err := mdf.Solve(p)
+	in.build(ev, rows, prev)
+	sol, err, same := memo.solve(ev, rows)
 	if err != nil {
+		memo.keep(nil, err, nil)
 		msg := "the max-min driving force could not be computed: " + err.Error()
 		if errors.Is(err, mdf.ErrNumerical) {
 			msg += " (please report the worksheet)"
@@ -178,10 +165,13 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 		ev.warn(Warning{Code: "mdf-failed", Message: msg})
 		return nil
 	}
-	out.DrivingForce = sol.MDF
-	out.Rows = make([]MDFRow, 0, len(used))
-	out.Concentrations = make([]OptimalConc, 0, len(compounds))
-	for j, cr := range used {
+	if same {
+		memo.keep(sol, nil, memo.out)
+		return memo.out
+	}
+	out := &MDF{DrivingForce: sol.MDF, Bottlenecks: []string{}, Concentrations: make([]OptimalConc, 0, len(in.compounds)),
+		Rows: make([]MDFRow, 0, len(rows)), Binding: []BindingBound{}, LeftOut: append([]string{}, in.leftOut...)}
+	for j, cr := range rows {
 		id := ev.done[cr.index].result.ID
 		out.Rows = append(out.Rows, MDFRow{ID: id, DrivingForce: sol.DrivingForce[j], Shadow: sol.Shadow[j],
 			Bottleneck: sol.Bottleneck[j]})
@@ -189,12 +179,10 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 			out.Bottlenecks = append(out.Bottlenecks, id)
 		}
 	}
-	for i, s := range compounds {
-		name := s.term.Name + tagOf(s.term.Compartment)
-		c, _ := ev.concentrationOf(s.r)
-		b := ev.boundOf(s.r)
+	for i, c := range in.compounds {
+		name, b := c.name+tagOf(c.compartment), c.bound
 		out.Concentrations = append(out.Concentrations, OptimalConc{Compound: name, Concentration: math.Exp(sol.LnConc[i]),
-			Entered: c.molar, Low: b.low, High: b.high})
+			Entered: c.entered, Low: b.low, High: b.high})
 		switch {
 		case (sol.LowerBinding[i] || sol.UpperBinding[i]) && b.low == b.high:
 			out.Binding = append(out.Binding, BindingBound{Compound: name, Side: "fixed", Bound: b.low})
@@ -205,6 +193,7 @@ func (ev *evaluation) maxMinDrivingForce(rows []computedRow) *MDF {
 		}
 	}
 	out.Message = mdfMessage(out)
+	memo.keep(sol, nil, out)
 	return out
 }
 

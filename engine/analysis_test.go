@@ -9,8 +9,12 @@ import (
 
 // chainSheet is a linear chain A → B → C → D of the worksheet's own compounds with entered ΔrG'°.
 const chainSheet = `{"format":"gibbsheet-worksheet/1","compounds":[{"id":"A"},{"id":"B"},{"id":"C"},{"id":"D"}],
- "bounds":{"default":["1 uM","10 mM"],"compounds":{"A":["5 mM","5 mM"],"D":["0.1 mM","0.1 mM"]}},
- "rows":[{"id":"1","equation":"A = B","dG0":-10},{"id":"2","equation":"B = C","dG0":5},{"id":"3","equation":"C = D","dG0":-2}]}`
+ "bounds":{` + chainBounds + `},"rows":[` + chainRows + `]}`
+
+const (
+	chainBounds = `"default":["1 uM","10 mM"],"compounds":{"A":["5 mM","5 mM"],"D":["0.1 mM","0.1 mM"]}`
+	chainRows   = `{"id":"1","equation":"A = B","dG0":-10},{"id":"2","equation":"B = C","dG0":5},{"id":"3","equation":"C = D","dG0":-2}`
+)
 
 // TestMDFLinearChain, derived by hand (RT = 2.47896 kJ/mol at 298.15 K): A is fixed at 5 mM and D at
 // 0.1 mM; B and C are free within 1 µM–10 mM. The driving forces are

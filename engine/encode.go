@@ -25,9 +25,16 @@ func (r *Result) AppendJSON(dst []byte) []byte {
 	}
 	size := sizeGuessBase + sizeGuessRow*len(r.Rows) + sizeGuessCompound*len(r.Compounds)
 	if r.rowJSON != nil {
+		// The rows' encodings, and the MDF's where a Session kept it, are there to measure.
 		size = sizeGuessBase + sizeGuessMDFRow*len(r.rowJSON) + sizeGuessCompound*len(r.Compounds)
+		if r.MDF != nil && r.MDF.json != nil {
+			size += len(r.MDF.json) - sizeGuessMDFRow*len(r.rowJSON)
+		}
 		for _, enc := range r.rowJSON {
 			size += len(enc) + 1
+		}
+		for i := range r.Compounds {
+			size += 8 * len(r.Compounds[i].Rows)
 		}
 	}
 	dst = slices.Grow(dst, size)
@@ -336,8 +343,17 @@ func (c *ConditionsUsed) appendJSON(dst []byte) []byte {
 	return append(dst, '}')
 }
 
-// appendJSON writes the MDF without Solver, which stays out of the document (json:"-").
+// appendJSON writes the MDF without Solver, which stays out of the document (json:"-"), or copies its
+// encoding where a Session kept one.
 func (m *MDF) appendJSON(dst []byte) []byte {
+	if m.json != nil {
+		return append(dst, m.json...)
+	}
+	return m.appendJSONRows(dst, (*MDFRow).appendJSON)
+}
+
+// appendJSONRows is appendJSON with the rows written by appendRow, in order.
+func (m *MDF) appendJSONRows(dst []byte, appendRow func(*MDFRow, []byte) []byte) []byte {
 	dst = append(dst, `{"drivingForce":`...)
 	dst = appendJSONFloat(dst, m.DrivingForce)
 	dst = append(dst, `,"bottlenecks":`...)
@@ -345,7 +361,7 @@ func (m *MDF) appendJSON(dst []byte) []byte {
 	dst = append(dst, `,"concentrations":`...)
 	dst = appendJSONSlice(dst, m.Concentrations, (*OptimalConc).appendJSON)
 	dst = append(dst, `,"rows":`...)
-	dst = appendJSONSlice(dst, m.Rows, (*MDFRow).appendJSON)
+	dst = appendJSONSlice(dst, m.Rows, appendRow)
 	dst = append(dst, `,"binding":`...)
 	dst = appendJSONSlice(dst, m.Binding, (*BindingBound).appendJSON)
 	dst = append(dst, `,"leftOut":`...)

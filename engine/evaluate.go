@@ -51,6 +51,7 @@ type evaluation struct {
 	heads       map[headKey]*useHead // for a Session: the compounds' entries under this context
 	done        []*memoRow           // the rows computed or remembered, in order
 	computed    []computedRow        // those of them that entered the totals, for the analysis
+	analysis    *mdfMemo             // for a Session: its latest analysis, which analyse takes from and sets
 }
 
 type concentration struct {

@@ -2,7 +2,6 @@ package engine
 
 import (
 	"bytes"
-	"slices"
 	"strconv"
 	"sync"
 
@@ -27,11 +26,7 @@ type Session struct {
 	setup *setup      // the latest context's, read once for the answers that share it
 	seen  *rowsSeen   // the latest worksheet's rows as read, to read the next one faster
 
-	analysed struct { // the latest analysis, kept while its worksheet's context and rows stay the same
-		context string
-		keys    []rowKey
-		body    []byte // `"mdf":…,"warnings":[…]}`
-	}
+	analysis mdfMemo // the latest analysis, which the next one takes what it can from
 }
 
 // ChangesJSON reads a worksheet document and returns the changes document:
@@ -131,7 +126,7 @@ func (s *Session) evaluate(worksheet []byte) (*evaluation, error) {
 		ev = newEvaluation(compounds.Builtin(), ws, unknown)
 		s.setup = ev.setup(len(unknown))
 	}
-	ev.live = true
+	ev.live, ev.analysis = true, &s.analysis
 	ev.evaluateRows()
 	ev.prior, ev.priorEv = nil, nil
 	s.ev, s.seen = ev, seen
@@ -148,34 +143,30 @@ func (s *Session) AnalysisJSON() (out []byte, err error) {
 	if s.ev == nil {
 		return nil, errNoAnswer
 	}
-	a := &s.analysed
-	keys := make([]rowKey, len(s.ev.done))
-	for i, m := range s.ev.done {
-		keys[i] = m.key
+	ev := s.ev
+	n := len(ev.res.Warnings)
+	ev.analyse()
+	size := 256
+	if ev.res.MDF != nil {
+		size += len(ev.res.MDF.json)
 	}
-	if a.body == nil || a.context != s.ev.context || !slices.Equal(a.keys, keys) {
-		ev := s.ev
-		n := len(ev.res.Warnings)
-		ev.analyse()
-		body := append([]byte(`"mdf":`), "null"...)
-		if ev.res.MDF != nil {
-			body = ev.res.MDF.appendJSON(body[:len(`"mdf":`)])
-		}
-		body = append(body, `,"warnings":`...)
-		body = appendJSONSlice(body, ev.res.Warnings[n:], (*Warning).appendJSON)
-		body = append(body, '}')
-		ev.res.Warnings, ev.res.MDF = ev.res.Warnings[:n], nil
-		a.context, a.keys, a.body = ev.context, keys, body
-	}
-	dst := append(make([]byte, 0, 16+len(a.body)), `{"seq":`...)
+	dst := append(make([]byte, 0, size), `{"seq":`...)
 	dst = strconv.AppendInt(dst, int64(s.seq), 10)
-	dst = append(dst, ',')
-	return append(dst, a.body...), nil
+	dst = append(dst, `,"mdf":`...)
+	if ev.res.MDF == nil {
+		dst = append(dst, "null"...)
+	} else {
+		dst = ev.res.MDF.appendJSON(dst)
+	}
+	dst = append(dst, `,"warnings":`...)
+	dst = appendJSONSlice(dst, ev.res.Warnings[n:], (*Warning).appendJSON)
+	ev.res.Warnings, ev.res.MDF = ev.res.Warnings[:n], nil
+	return append(dst, '}'), nil
 }
 
 // reset forgets the latest answer, after a failure of the engine left it in doubt.
 func (s *Session) reset() {
 	s.seq++
 	s.ev, s.setup, s.seen = nil, nil, nil
-	s.analysed.body = nil
+	s.analysis = mdfMemo{}
 }

@@ -3,6 +3,8 @@ package engine
 import (
 	"bytes"
 	"encoding/json"
+	"math/rand/v2"
+	"slices"
 	"strings"
 	"testing"
 
@@ -185,5 +187,152 @@ func TestCompoundsJSON(t *testing.T) {
 	}
 	if diff := cmp.Diff(want, got); diff != "" {
 		t.Errorf("CompoundsJSON (-library +written):\n%s", diff)
+	}
+}
+
+// mdfEdits are edits of chainSheet (analysis_test.go) that the max-min driving force either shows
+// (changed) or not, and that change its linear program (solved) or not; TestMDFMemoMatchesFresh evaluates
+// chainSheet and each edit in turn. Empty rows and bounds stand for chainRows and chainBounds.
+var mdfEdits = []struct {
+	name                string
+	changed, solved     bool
+	rows, bounds, extra string
+}{
+	{"only a multiplier", false, false, strings.Replace(chainRows, `"id":"2",`, `"id":"2","times":2,`, 1), "", ""},
+	{"only a note", false, false, strings.Replace(chainRows, `"id":"1",`, `"id":"1","note":"first step",`, 1), "", ""},
+	{"only the title", false, false, "", "", `"title":"a chain",`},
+	{"only a bound", true, true, "", strings.Replace(chainBounds, `"D"`, `"B":["1 uM","20 mM"],"D"`, 1), ""},
+	{"only a ΔrG'°", true, true, strings.Replace(chainRows, `"dG0":5`, `"dG0":6`, 1), "", ""},
+	{"only one coefficient", true, true, strings.Replace(chainRows, `"C = D"`, `"C = 2 D"`, 1), "", ""},
+	{"only a compound", true, true, strings.Replace(chainRows, `"C = D"`, `"B = D"`, 1), "", ""},
+	{"a compound with other bounds", true, true, strings.Replace(chainRows, `"C = D"`, `"C = E"`, 1), "",
+		`"compounds":[{"id":"A"},{"id":"B"},{"id":"C"},{"id":"D"},{"id":"E"}],`},
+	{"only a compound's name as written", true, false, strings.Replace(chainRows, `"A = B"`, `"a = B"`, 1), "", ""},
+	{"only an entered concentration", true, false, "", "", `"concentrations":{"C":"0.2 mM"},`},
+	{"only a row id", true, false, strings.Replace(chainRows, `"id":"3"`, `"id":"third"`, 1), "", ""},
+	{"only the temperature", true, true, "", "", `"conditions":{"temperature":310.15},`},
+	{"only the default bounds", true, true, "", strings.Replace(chainBounds, `"1 uM"`, `"10 uM"`, 1), ""},
+	{"only a row left out", true, false, chainRows + `,{"id":"4","equation":"X = Y"}`, "", ""},
+	{"a row without ΔrG'°", true, true, strings.Replace(chainRows, `"dG0":-10`, `"times":1`, 1), "", ""},
+	{"the rows in another order", true, true, `{"id":"3","equation":"C = D","dG0":-2},` +
+		`{"id":"1","equation":"A = B","dG0":-10},{"id":"2","equation":"B = C","dG0":5}`, "", ""},
+}
+
+// TestMDFMemoMatchesFresh: a Session, and EvaluateJSON, which take the max-min driving force from their
+// latest analysis when its problem is unchanged, give the MDF of a fresh evaluation, byte for byte, after
+// each edit of mdfEdits and after going back from it to chainSheet; the fresh MDF does change with each
+// edit marked changed, so that an MDF kept too long would show, and the session solves again, and makes the
+// MDF again, exactly after the edits that change the problem, or the MDF, and after going back from them.
+func TestMDFMemoMatchesFresh(t *testing.T) {
+	s := new(Session)
+	var merged map[string]any
+	var before []byte // the fresh MDF of the version before
+	seq := 0
+	evaluate := func(name string, changed, solved bool, rows, bounds, extra string) {
+		t.Helper()
+		if rows == "" {
+			rows = chainRows
+		}
+		if bounds == "" {
+			bounds = chainBounds
+		}
+		if !strings.Contains(extra, `"compounds"`) {
+			extra += `"compounds":[{"id":"A"},{"id":"B"},{"id":"C"},{"id":"D"}],`
+		}
+		doc := []byte(`{"format":"gibbsheet-worksheet/1",` + extra + `"bounds":{` + bounds + `},"rows":[` + rows + `]}`)
+		fresh, err := evaluateFresh(doc)
+		if err != nil {
+			t.Fatalf("%s: %v\n%s", name, err, doc)
+		}
+		var want struct {
+			MDF    json.RawMessage `json:"mdf"`
+			Errors []FieldError    `json:"errors"`
+		}
+		if err := json.Unmarshal(fresh, &want); err != nil || len(want.Errors) > 0 || string(want.MDF) == "null" {
+			t.Fatalf("%s: not a clean worksheet with an MDF (%v): %s", name, err, fresh)
+		}
+		if got := !bytes.Equal(want.MDF, before); got != changed {
+			t.Errorf("%s: the fresh MDF changed: %v, want %v", name, got, changed)
+		}
+		before = want.MDF
+		if kept, _ := EvaluateJSON(doc); !bytes.Equal(kept, fresh) {
+			t.Errorf("%s: EvaluateJSON differs from a fresh evaluation:\n%s\n%s", name, kept, fresh)
+		}
+		sol, out := s.analysis.sol, s.analysis.out
+		changes, err := s.ChangesJSON(doc, seq)
+		if err != nil {
+			t.Fatal(err)
+		}
+		seq++
+		analysis, err := s.AnalysisJSON()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := s.analysis.sol != sol; got != solved {
+			t.Errorf("%s: solved again: %v, want %v", name, got, solved)
+		}
+		if got := s.analysis.out != out; got != changed {
+			t.Errorf("%s: the MDF made again: %v, want %v", name, got, changed)
+		}
+		merged = mergeChanges(t, merged, changes, analysis)
+		var wantDoc map[string]any
+		json.Unmarshal(fresh, &wantDoc)
+		if diff := cmp.Diff(wantDoc, merged); diff != "" {
+			t.Errorf("%s: the session's answer differs from a fresh evaluation (-want +got):\n%s", name, diff)
+		}
+	}
+	evaluate("chainSheet", true, true, "", "", "")
+	for _, e := range mdfEdits {
+		evaluate(e.name, e.changed, e.solved, e.rows, e.bounds, e.extra)
+		evaluate(e.name+", undone", e.changed, e.solved, "", "", "")
+	}
+}
+
+// TestMDFMemoRandomEdits: a seeded random series of edits of a 30-row glycolysis worksheet (multipliers,
+// coefficients, rows swapped, removed and put back, bounds and concentrations) evaluated by EvaluateJSON,
+// which keeps its latest analysis, gives after every edit the bytes of a fresh evaluation.
+func TestMDFMemoRandomEdits(t *testing.T) {
+	rng := rand.New(rand.NewPCG(20261202, 2))
+	ws, _, err := Decode(benchSheet(30))
+	if err != nil {
+		t.Fatal(err)
+	}
+	all := slices.Clone(ws.Rows)
+	for step := range 200 {
+		ws.Rows = slices.Clone(ws.Rows)
+		i := rng.IntN(len(ws.Rows))
+		switch rng.IntN(6) {
+		case 0:
+			times := float64(1 + rng.IntN(3))
+			ws.Rows[i].Times = &times
+		case 1:
+			ws.Rows[i].Equation = "2 " + strings.ReplaceAll(strings.ReplaceAll(all[i%len(all)].Equation,
+				" + ", " + 2 "), " = ", " = 2 ")
+		case 2:
+			j := rng.IntN(len(ws.Rows))
+			ws.Rows[i], ws.Rows[j] = ws.Rows[j], ws.Rows[i]
+		case 3:
+			if len(ws.Rows) > 2 {
+				ws.Rows = slices.Delete(ws.Rows, i, i+1)
+			} else {
+				ws.Rows = slices.Clone(all)
+			}
+		case 4:
+			ws.Bounds = &Bounds{Compounds: map[string][]string{"ADP": {"1 uM", []string{"1 mM", "10 mM"}[rng.IntN(2)]}}}
+		case 5:
+			ws.Concentrations = cloneMap(ws.Concentrations)
+			ws.Concentrations["Pi"] = []string{"3 mM", "5 mM"}[rng.IntN(2)]
+		}
+		doc, err := json.Marshal(ws)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got, err := EvaluateJSON(doc)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if want, _ := evaluateFresh(doc); !bytes.Equal(got, want) {
+			t.Fatalf("step %d: EvaluateJSON differs from a fresh evaluation:\n%s\n%s", step, got, want)
+		}
 	}
 }

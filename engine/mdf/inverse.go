@@ -16,7 +16,7 @@ const refactorMin = 32
 
 // stale reports whether the inverse is due for recomputation.
 func (sx *simplex) stale() bool {
-	return sx.kinv == nil || sx.updates >= max(refactorMin, 2*len(sx.P))
+	return !sx.inverted || sx.updates >= max(refactorMin, 2*len(sx.P))
 }
 
 // reserve makes the stride of the inverse at least k, keeping its entries.
@@ -52,7 +52,7 @@ func (sx *simplex) refactor() bool {
 			sx.kinv[c*sx.ks+r] = v
 		}
 	}
-	sx.updates = 0
+	sx.updates, sx.inverted = 0, true
 	return true
 }
 

@@ -94,8 +94,13 @@ func (sx *simplex) pivot(q, dir int) error {
 		if sx.tPos[j] >= 0 {
 			continue
 		}
+		// The slack is computed where the ratio test needs it (see primal),
+		// and a step longer than the best so far is passed over before
+		// consider, which would pass it over too.
 		if delta := -float64(dir) * wj; delta < -pivTol {
-			consider(math.Max(sx.s[j], 0)/-delta, n+1+j, -delta)
+			if t := math.Max(lp.b[j]-sx.rowDot(j)-sx.bval, 0) / -delta; t <= tBest+ratioTieTol {
+				consider(t, n+1+j, -delta)
+			}
 		}
 	}
 	if leave == -2 {

@@ -57,7 +57,6 @@ type simplex struct {
 	lp   *sparseLP
 	x    []float64 // compound values (nonbasic: exactly at a bound)
 	bval float64   // value of B
-	s    []float64 // slack of each row
 	st   []varStatus
 	P, T []int // structural basics (n = B) and tight rows, paired by position
 	pPos []int // position of structural variable in P, or -1 (length n+1)
@@ -66,6 +65,9 @@ type simplex struct {
 	kbuf []float64
 	kinv []float64 // E = K⁻¹, row-major with stride ks (see inverse.go)
 	ks   int
+	// inverted reports that kinv holds the inverse of the current kernel,
+	// up to the updates since.
+	inverted bool
 	// updates counts inverse updates since the last refactorisation.
 	updates int
 	// fresh makes primal and dual use the LU factors instead of kinv.
@@ -75,21 +77,33 @@ type simplex struct {
 	alpha []float64 // K⁻¹ times the entering column, by position in P
 	w     []float64 // change of basic slacks per unit step, by row
 	tmp   []float64
+	net   []float64 // scratch for init
 	bland bool
 	degen int
 	iters int
 }
 
 func newSimplex(lp *sparseLP) *simplex {
+	sx := new(simplex)
+	sx.init(lp)
+	return sx
+}
+
+// init sets sx up for lp as newSimplex does, in the buffers sx holds: every
+// value the method reads is set again, so what sx solved before does not
+// matter.
+func (sx *simplex) init(lp *sparseLP) {
 	n := lp.n
-	sx := &simplex{
-		lp: lp, x: make([]float64, n), s: make([]float64, lp.m), st: make([]varStatus, n),
-		pPos: make([]int, n+1), tPos: make([]int, lp.m),
-		d: make([]float64, n), w: make([]float64, lp.m),
-	}
+	sx.lp = lp
+	sx.x, sx.st = resize(sx.x, n), resize(sx.st, n)
+	sx.pPos, sx.tPos = resize(sx.pPos, n+1), resize(sx.tPos, lp.m)
+	sx.d, sx.w = resize(sx.d, n), resize(sx.w, lp.m)
+	sx.bval, sx.inverted, sx.updates, sx.fresh = 0, false, 0, false
+	sx.bland, sx.degen, sx.iters = false, 0, 0
 	// Start with every compound at the bound that favours its net use:
 	// net substrates high, products low (any vertex would do).
-	net := make([]float64, n)
+	net := resize(sx.net, n)
+	clear(net)
 	for k, c := range lp.rowCmp {
 		net[c] += lp.rowVal[k]
 	}
@@ -100,8 +114,8 @@ func newSimplex(lp *sparseLP) *simplex {
 			sx.x[i], sx.st[i] = lp.lo[i], atLower
 		}
 	}
+	sx.net = net
 	sx.startBasis()
-	return sx
 }
 
 // startBasis sets up the initial basis for compounds all nonbasic at the
@@ -198,8 +212,9 @@ func (sx *simplex) factor() bool {
 }
 
 // primal recomputes the basic values from the nonbasic ones, so rounding
-// errors do not accumulate over pivots: K x_P = b_T − A[T, nonbasic] x_N,
-// then s = b − A x − B.
+// errors do not accumulate over pivots: K x_P = b_T − A[T, nonbasic] x_N.
+// The slacks s = b − A x − B of the rows outside T follow from them; the
+// ratio test computes those it needs (pivot).
 func (sx *simplex) primal() {
 	lp, rhs := sx.lp, sx.alpha[:len(sx.T)]
 	for r, j := range sx.T {
@@ -221,13 +236,6 @@ func (sx *simplex) primal() {
 			sx.bval = rhs[c]
 		} else {
 			sx.x[p] = rhs[c]
-		}
-	}
-	for j := range lp.m {
-		if sx.tPos[j] >= 0 {
-			sx.s[j] = 0
-		} else {
-			sx.s[j] = lp.b[j] - sx.rowDot(j) - sx.bval
 		}
 	}
 }

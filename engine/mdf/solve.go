@@ -41,16 +41,30 @@ type Solution struct {
 // For degenerate problems the duals, and so Bottleneck and the binding
 // bounds, are one optimal choice among several; MDF and the constraint
 // values are unique up to rounding.
-func Solve(p *Problem) (*Solution, error) {
+func Solve(p *Problem) (*Solution, error) { return new(Solver).Solve(p) }
+
+// Solver solves one problem after another in the same working memory,
+// which saves most of the allocations of Solve when the problems are of a
+// like size. Its results are those of Solve, whatever it solved before
+// (TestSolverReuse). The zero value is ready to use; a Solver is not safe for
+// concurrent use.
+type Solver struct {
+	lp  sparseLP
+	sx  simplex
+	pos []int
+}
+
+// Solve is Solve(p), in s's working memory; the Solution shares no memory with s.
+func (s *Solver) Solve(p *Problem) (*Solution, error) {
 	if err := p.validate(); err != nil {
 		return nil, err
 	}
-	lp := newSparseLP(p)
-	sx := newSimplex(lp)
-	if err := sx.run(); err != nil {
+	s.pos = s.lp.build(p, s.pos)
+	s.sx.init(&s.lp)
+	if err := s.sx.run(); err != nil {
 		return nil, err
 	}
-	return sx.solution(p), nil
+	return s.sx.solution(p), nil
 }
 
 // solution reads the optimal basis into a Solution, recomputing the driving

@@ -1,5 +1,7 @@
 package mdf
 
+import "slices"
+
 // sparseLP is the constraint matrix of a Problem in the form
 //
 //	A x + B·1 + s = b,   s ≥ 0,   lo ≤ x ≤ up,   B free,
@@ -24,15 +26,27 @@ type sparseLP struct {
 // newSparseLP builds the matrix of a validated problem, summing repeated
 // compounds within a reaction and dropping zero coefficients.
 func newSparseLP(p *Problem) *sparseLP {
+	s := new(sparseLP)
+	s.build(p, nil)
+	return s
+}
+
+// build makes s the matrix of a validated problem as newSparseLP does, in
+// the buffers s holds, and returns pos, a scratch buffer to keep for the next
+// build.
+func (s *sparseLP) build(p *Problem, pos []int) []int {
 	m, n := len(p.Reactions), len(p.Lower)
-	s := &sparseLP{m: m, n: n, b: make([]float64, m), lo: p.Lower, up: p.Upper}
-	s.rowStart = make([]int, m+1)
+	s.m, s.n, s.lo, s.up = m, n, p.Lower, p.Upper
+	s.b = resize(s.b, m)
+	s.rowStart = resize(s.rowStart, m+1)
+	s.rowStart[0] = 0
 	terms := 0
 	for j := range p.Reactions {
 		terms += len(p.Reactions[j].Compound)
 	}
-	s.rowCmp, s.rowVal = make([]int, 0, terms), make([]float64, 0, terms)
-	pos := make([]int, n) // position of compound i in the current row, plus 1
+	s.rowCmp, s.rowVal = slices.Grow(s.rowCmp[:0], terms), slices.Grow(s.rowVal[:0], terms)
+	pos = resize(pos, n) // position of compound i in the current row, plus 1
+	clear(pos)
 	for j := range p.Reactions {
 		r := &p.Reactions[j]
 		s.b[j] = -r.DG0
@@ -61,8 +75,9 @@ func newSparseLP(p *Problem) *sparseLP {
 		s.rowCmp, s.rowVal = s.rowCmp[:w], s.rowVal[:w]
 		s.rowStart[j+1] = w
 	}
-	// Transpose into columns.
-	s.colStart = make([]int, n+1)
+	// Transpose into columns; pos is the next free entry of each column.
+	s.colStart = resize(s.colStart, n+1)
+	clear(s.colStart)
 	for _, c := range s.rowCmp {
 		s.colStart[c+1]++
 	}
@@ -70,9 +85,8 @@ func newSparseLP(p *Problem) *sparseLP {
 		s.colStart[i+1] += s.colStart[i]
 	}
 	nnz := len(s.rowCmp)
-	s.colRow = make([]int, nnz)
-	s.colVal = make([]float64, nnz)
-	next := append([]int(nil), s.colStart[:n]...)
+	s.colRow, s.colVal = resize(s.colRow, nnz), resize(s.colVal, nnz)
+	next := append(pos[:0], s.colStart[:n]...)
 	for j := range m {
 		for k := s.rowStart[j]; k < s.rowStart[j+1]; k++ {
 			c := s.rowCmp[k]
@@ -81,5 +95,14 @@ func newSparseLP(p *Problem) *sparseLP {
 			next[c]++
 		}
 	}
-	return s
+	return next
+}
+
+// resize returns b with length n, reallocated if its capacity is short; the
+// entries are left as they were.
+func resize[T any](b []T, n int) []T {
+	if cap(b) < n {
+		return make([]T, n)
+	}
+	return b[:n]
 }
