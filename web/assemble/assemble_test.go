@@ -145,10 +145,15 @@ func TestBuildPage(t *testing.T) {
 			t.Errorf("page lacks %s", part)
 		}
 	}
-	for _, outside := range []string{`src="http`, `href="http`, "import(", "<link "} {
+	for _, outside := range []string{`src="http`, `href="http`, "import("} {
 		if strings.Contains(html, outside) {
 			t.Errorf("page refers outside itself: %s", outside)
 		}
+	}
+	// The one link is the render-blocking one to an element of the page itself.
+	if links := regexp.MustCompile(`<link\b[^>]*>`).FindAllString(html, -1); len(links) != 1 ||
+		links[0] != `<link rel="expect" href="#gibbsheet-drawn" blocking="render">` || !strings.Contains(html, `id="gibbsheet-drawn"`) {
+		t.Errorf("the page's links are %q, want only the render-blocking link to #gibbsheet-drawn, which it holds", links)
 	}
 	if p.GzipSize >= p.WasmSize {
 		t.Errorf("gzip did not shrink the module: %d >= %d", p.GzipSize, p.WasmSize)

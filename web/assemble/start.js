@@ -84,7 +84,18 @@
     return { api, exit };
   }
 
-  const engine = start();
+  // afterFirstFrame resolves once the browser has painted what the page's script drew (a frame, then a
+  // task), or after a tenth of a second where the page is not painted (a hidden tab). The browser paints
+  // the page once it has read the whole file, and decoding the engine's text takes tens of milliseconds
+  // of the main thread, which would hold that first frame back; compiling it does not (it runs elsewhere).
+  function afterFirstFrame() {
+    return new Promise((resolve) => {
+      requestAnimationFrame(() => setTimeout(resolve, 0));
+      setTimeout(resolve, 100);
+    });
+  }
+
+  const engine = afterFirstFrame().then(start);
   engine.catch(() => {}); // startEngine reports it
   startTexts();
   globalThis.gibbsheetStart = { text7Bytes, inflate, texts, engine };

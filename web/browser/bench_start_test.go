@@ -2,6 +2,8 @@ package browser
 
 import (
 	"encoding/json"
+	"os"
+	"path/filepath"
 	"testing"
 )
 
@@ -52,9 +54,31 @@ func benchFirstResult(b *testing.B) {
 			got[m.unit] = append(got[m.unit], t)
 		}
 		got["ms/first-evaluate"] = append(got["ms/first-evaluate"], times["evaluate"])
+		p.close()
 	}
 	for _, m := range startMarks {
 		b.ReportMetric(median(got[m.unit]), m.unit)
 	}
 	b.ReportMetric(median(got["ms/first-evaluate"]), "ms/first-evaluate")
+}
+
+// blankFile is a nearly empty page whose one script marks when it runs.
+const blankFile = `<!doctype html><html><head><meta charset="utf-8"><title>blank</title></head>` +
+	`<body><p>blank</p><script>performance.mark("blank:script")</script></body></html>`
+
+// benchBlankFile opens blankFile in a fresh browser each time, as benchFirstResult opens the page, and
+// reports the median time from the start of the navigation to its script (ms/script): what opening any
+// file costs before the page's own work begins.
+func benchBlankFile(b *testing.B) {
+	path := filepath.Join(b.TempDir(), "blank.html")
+	if err := os.WriteFile(path, []byte(blankFile), 0o644); err != nil {
+		b.Fatal(err)
+	}
+	var got []float64
+	for b.Loop() {
+		p := openUntil(b, "file://"+path, 1400, 900, `performance.getEntriesByName("blank:script").length > 0`)
+		got = append(got, eval[float64](p, `performance.getEntriesByName("blank:script")[0].startTime`))
+		p.close()
+	}
+	b.ReportMetric(median(got), "ms/script")
 }

@@ -61,6 +61,11 @@ func TestSavedResultShown(t *testing.T) {
 	if shown >= ready {
 		t.Errorf("the first result was drawn at %.0f ms, not before the engine was ready (%.0f ms)", shown, ready)
 	}
+	// The first frame waits for it (the page's render-blocking link), so no frame shows the grid empty.
+	p.waitFor(`performance.getEntriesByName("first-contentful-paint").length > 0`)
+	if painted := eval[float64](p, `performance.getEntriesByName("first-contentful-paint")[0].startTime`); painted < shown {
+		t.Errorf("the page was first painted at %.0f ms, before the first result was drawn (%.0f ms)", painted, shown)
+	}
 
 	q := openWithoutEngine(t, withoutEngine(t, readPage(t), func(s string) string { return s }), "saved-result")
 	if got := eval[string](q, gridResults); got != computed {
