@@ -4,9 +4,11 @@ import (
 	"bytes"
 	"encoding/json"
 	"math/rand/v2"
+	"runtime"
 	"slices"
 	"strings"
 	"testing"
+	"weak"
 
 	"github.com/google/go-cmp/cmp"
 
@@ -335,4 +337,35 @@ func TestMDFMemoRandomEdits(t *testing.T) {
 			t.Fatalf("step %d: EvaluateJSON differs from a fresh evaluation:\n%s\n%s", step, got, want)
 		}
 	}
+}
+
+// TestSessionKeepsOnlyTheLatestDocument edits a worksheet many times in one session and checks that the
+// documents it read before the latest are let go: a session that kept every version (as one did, through
+// the reading it keeps for the next) grows without end while someone types, until the page slows to a
+// crawl. It is a memory test and needs no source.
+func TestSessionKeepsOnlyTheLatestDocument(t *testing.T) {
+	doc := benchSheet(50)
+	edited := bytes.Replace(doc, []byte(`"id":"r25",`), []byte(`"id":"r25","times":2,`), 1)
+	s := new(Session)
+	first := bytes.Clone(doc)
+	gone := weak.Make(&first[0])
+	if _, err := s.ChangesJSON(first, 0); err != nil {
+		t.Fatal(err)
+	}
+	first = nil
+	for i := 1; i <= 6; i++ {
+		next := bytes.Clone([2][]byte{doc, edited}[i%2])
+		if _, err := s.ChangesJSON(next, i); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := s.AnalysisJSON(); err != nil {
+			t.Fatal(err)
+		}
+	}
+	runtime.GC()
+	runtime.GC()
+	if gone.Value() != nil {
+		t.Error("after six more versions, the session still holds the first document it read")
+	}
+	runtime.KeepAlive(s)
 }

@@ -109,7 +109,11 @@ func decodeSeen(data []byte, seen *rowsSeen) (*Worksheet, []string, *rowsSeen, e
 	if d.rowLists > 1 {
 		d.next.spans = nil // the later list changed rows the spans were read for
 	}
-	return ws, unknown, &d.next, nil
+	// A copy, not &d.next: that would keep the decoder, and through its seen every earlier reading,
+	// alive as long as the session keeps this one (TestSessionKeepsOnlyTheLatestDocument).
+	next := new(rowsSeen)
+	*next = d.next
+	return ws, unknown, next, nil
 }
 
 func decodeWith(d *decoder) (*Worksheet, []string, error) {
