@@ -8,6 +8,8 @@ import (
 	"testing"
 
 	"github.com/google/go-cmp/cmp"
+
+	"gibbsheet/web/assemble"
 )
 
 // gridResults is the text of every row's computed cells (ΔrG'°, ΔrG', K', status, cost), row by row.
@@ -132,4 +134,24 @@ func TestEditBeforeEngine(t *testing.T) {
 		t.Errorf("after the engine started, the edited step's cost shows %q, want 3.0", got)
 	}
 	p.noErrors()
+}
+
+// TestSavedResultFromGo puts a worksheet whose text is beyond ASCII (µ, Δ, a character outside the Basic
+// Multilingual Plane) into the built page with assemble.WithWorksheet, as the command line and the edge
+// service do, and opens it without its engine: the page takes the result Go saved, so the page's
+// fingerprint of the text (in UTF-16 code units) agrees with inject.Fingerprint.
+func TestSavedResultFromGo(t *testing.T) {
+	doc := []byte(`{"format":"gibbsheet-worksheet/1","title":"µM and ΔrG'° 🧪","rows":[` +
+		`{"id":"r1","equation":"ATP + H2O = ADP + Pi","note":"hydrolysis 🧪"}]}`)
+	html, err := assemble.WithWorksheet(readPage(t), doc)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := openWithoutEngine(t, withoutEngine(t, html, func(s string) string { return s }), "saved-by-go")
+	if got := eval[string](p, gridResults); !regexp.MustCompile(`\d`).MatchString(got) {
+		t.Errorf("the page shows no result for the worksheet Go put in with its result: %s", got)
+	}
+	if got := eval[string](p, `gibbsheetPage.store.doc.title`); got != "µM and ΔrG'° 🧪" {
+		t.Errorf("title %q", got)
+	}
 }
