@@ -90,6 +90,19 @@ func TestSavedResultShown(t *testing.T) {
 	if n := eval[int](r, `document.querySelectorAll("#grid-body textarea, #grid-body input").length`); n == 0 {
 		t.Error("the rows of the changed worksheet are not shown")
 	}
+
+	// With its engine, the changed worksheet is computed, and the footer says the engine is ready.
+	changed := filepath.Join(t.TempDir(), "changed.html")
+	if err := os.WriteFile(changed, []byte(strings.Replace(string(readPage(t)), `"times":2`, `"times":3`, 1)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	e := openURL(t, "file://"+changed, 1400, 900)
+	if got := eval[string](e, gridResults); !regexp.MustCompile(`\d`).MatchString(got) {
+		t.Errorf("the changed worksheet is not computed: %s", got)
+	}
+	if got := e.text("#engine-state"); !strings.HasPrefix(got, "Engine ready") {
+		t.Errorf("the footer says %q once the engine has computed a worksheet without a saved result, want Engine ready …", got)
+	}
 }
 
 // TestSavedResultSaved edits the worksheet, saves the page as a file and opens that file without its

@@ -181,11 +181,13 @@ async function main() {
   onChange(render);
   openShell(); // the shell, the worksheet and the result saved with it come before this script
   let initial;
+  let readError = ""; // shown once the engine has started, in place of what the footer says meanwhile
   try {
     initial = initialWorksheet();
   } catch (e) {
     initial = { doc: emptyDocument(), origin: "empty" };
-    state.textContent = "The worksheet inside this page could not be read (" + e.message + "); an empty one is open.";
+    readError = "The worksheet inside this page could not be read (" + e.message + "); an empty one is open.";
+    state.textContent = readError;
   }
   const fromFile = initial.origin !== "empty";
   initial = chooseInitial(initial); // the edits kept in this browser for this file, if any
@@ -194,7 +196,7 @@ async function main() {
   wireGrid();
   showSaved(initial.doc, saved, initial.origin);
   if (fromFile && !initial.restored) markEmbedded(); // before any edit
-  if (saved && !state.textContent) state.textContent = "Showing the results saved with this file while the engine starts…";
+  if (saved) state.textContent = "Showing the results saved with this file while the engine starts…";
   await parsed(); // the templates, the engine and its start script follow this script
   // The templates are inflated while the engine starts (the picker and the comparison panel list them).
   const templatesReady = prepareTemplates();
@@ -205,7 +207,7 @@ async function main() {
     state.classList.add("err");
     return;
   }
-  if (saved) state.textContent = "";
+  state.textContent = readError;
   await templatesReady;
   document.getElementById("version").textContent = "version " + store.engine.version;
   setupShare();
